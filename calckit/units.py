@@ -133,7 +133,7 @@ def to_si(value, dim: str, name: str = "value", *, allow_array: bool = True):
             mag = value.m_as(u)
         except Exception:
             raise UnitsError(
-                f"{name}: got {value!r} ({value.dimensionality}); expected {DIMS[dim][3]}"
+                f"{name}: got {_fmt(value)} (dimension {value.dimensionality}); expected {DIMS[dim][3]}"
             ) from None
     else:
         if dim not in ("dimensionless", "rotation") and not _is_zero(value):
@@ -153,6 +153,13 @@ def to_si(value, dim: str, name: str = "value", *, allow_array: bool = True):
     if math.isnan(f):
         raise InputError(f"{name}: got NaN; expected a finite number")
     return f
+
+
+def _fmt(q) -> str:
+    try:
+        return f"{q.magnitude:g} {q.units:~}"
+    except Exception:
+        return repr(q)
 
 
 def _is_zero(v) -> bool:

@@ -1,0 +1,40 @@
+"""Foundation speed goals (issue: foundation): `import calckit` <= 0.3 s; building every catalog
+section's properties <= 0.2 s. Run: .venv/bin/python benchmarks/bench_foundation.py"""
+from __future__ import annotations
+
+import statistics
+import subprocess
+import sys
+import time
+
+
+def import_time(n: int = 7) -> float:
+    code = "import time; t=time.perf_counter(); import calckit; print(time.perf_counter()-t)"
+    runs = [float(subprocess.check_output([sys.executable, "-c", code], text=True)) for _ in range(n)]
+    return statistics.median(runs)
+
+
+def import_time_process(n: int = 5) -> float:
+    runs = []
+    for _ in range(n):
+        t = time.perf_counter()
+        subprocess.check_call([sys.executable, "-c", "import calckit"])
+        runs.append(time.perf_counter() - t)
+    return statistics.median(runs)
+
+
+def catalog_load_time() -> tuple[int, float]:
+    code = ("import time; t=time.perf_counter(); import calckit.sections.catalog as c; "
+            "s=c.catalog(); print(len(s), time.perf_counter()-t)")
+    out = subprocess.check_output([sys.executable, "-c", code], text=True).split()
+    return int(out[0]), float(out[1])
+
+
+if __name__ == "__main__":
+    print(f"import calckit (in-process, median of 7): {import_time() * 1e3:.1f} ms  (goal <= 300 ms)")
+    print(f"python -c 'import calckit' whole process (median of 5): {import_time_process() * 1e3:.1f} ms")
+    try:
+        n, t = catalog_load_time()
+        print(f"catalog: {n} sections loaded and built, cold process: {t * 1e3:.1f} ms  (goal <= 200 ms)")
+    except Exception as exc:  # catalog not available
+        print(f"catalog: not measured ({exc})")
