@@ -24,7 +24,7 @@ def import_time_process(n: int = 5) -> float:
 
 
 def catalog_load_time() -> tuple[int, float]:
-    code = ("import time; t=time.perf_counter(); import calckit.sections.catalog as c; "
+    code = ("import time; t=time.perf_counter(); import calckit.sections as c; "
             "s=c.catalog(); print(len(s), time.perf_counter()-t)")
     out = subprocess.check_output([sys.executable, "-c", code], text=True).split()
     return int(out[0]), float(out[1])
