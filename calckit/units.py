@@ -57,8 +57,7 @@ def _registry():
 
         reg = pint.UnitRegistry(autoconvert_offset_to_baseunit=True)
         # Trade units not in pint's defaults (or spelled the way engineers write them).
-        reg.define("kip = 1000 * pound_force = kips")
-        reg.define("ksi = kip / inch ** 2")
+        # pint already knows kip and ksi; add the trade's per-length and per-area spellings
         reg.define("klf = kip / foot")
         reg.define("plf = pound_force / foot")
         reg.define("psf = pound_force / foot ** 2")
