@@ -1,0 +1,159 @@
+"""Benchmark: section search over the whole catalog, and welded girder proportioning.
+
+Goals (brief): whole-catalog search (>= 250 shapes, every check, one member) <= 100 ms; girder
+proportioning over a stock of 15 plate thicknesses and 10 widths <= 5 s. Plain script; prints numbers,
+including where the time goes per check (the design modules' numeric paths).
+Run: .venv/bin/python benchmarks/bench_pick.py
+"""
+from __future__ import annotations
+
+import statistics
+import time
+
+import numpy as np
+
+GOAL_SEARCH_S = 0.100
+GOAL_GIRDER_S = 5.0
+FAMILIES = ["W", "IPE", "HEA", "HEB"]
+
+
+def _members():
+    from calckit.pick import member
+
+    return {
+        "AISC LRFD, 35 ft simple span, continuous bracing":
+            member("35 ft", dead_udl="0.45 kip/ft", live_udl="0.75 kip/ft", grade="A992"),
+        "AISC LRFD, 35 ft simple span, braced at thirds":
+            member("35 ft", dead_udl="0.45 kip/ft", live_udl="0.75 kip/ft", grade="A992", bracing="thirds"),
+        "AISC ASD, 2 x 24 ft continuous, braced at midspans":
+            member(["24 ft", "24 ft"], ["pin", "roller", "roller"], dead_udl="1 kip/ft", live_udl="1.6 kip/ft",
+                   method="ASD", grade="A992", bracing="midspan"),
+        "EN 1993-1-1, 6 m simple span, restrained":
+            member("6 m", dead_udl="10 kN/m", live_udl="15 kN/m", standard="EN 1993-1-1", grade="S355"),
+        "EN 1993-1-1, 6 m simple span, restraint at midspan":
+            member("6 m", dead_udl="10 kN/m", live_udl="15 kN/m", standard="EN 1993-1-1", grade="S355",
+                   bracing="midspan"),
+    }
+
+
+def bench_search(repeat: int = 5) -> list[tuple[str, int, float, float, dict]]:
+    import calckit
+
+    out = []
+    for label, m in _members().items():
+        calckit.pick(m, families=FAMILIES)  # warm-up (data files, compiled formulas)
+        runs = [calckit.pick(m, families=FAMILIES) for _ in range(repeat)]
+        best = min(runs, key=lambda r: r.elapsed)
+        med = statistics.median(r.elapsed for r in runs)
+        out.append((label, best.n_checked, best.elapsed, med, best.timings))
+    return out
+
+
+def per_check(m, n: int = 60) -> dict[str, float]:
+    """Mean time per candidate (s) of each stage of one candidate's checks."""
+    from calckit.design import aisc360, en1993
+    from calckit.materials import steel
+    from calckit.pick.checks import _context, checker_for
+    from calckit.pick.response import Response
+    from calckit.sections import catalog
+
+    secs = catalog(FAMILIES)[:n]
+    st = steel(m.grade)
+    w = np.array([s.si.mass * 9.80665 for s in secs])
+    EI = np.array([st.E_si * s.si.Ix for s in secs])
+    t = time.perf_counter()
+    resp = Response(m)
+    t_resp = time.perf_counter() - t
+    t = time.perf_counter()
+    dem = resp.demands(w, EI)
+    t_dem = (time.perf_counter() - t) / n
+    ctx = _context(m)
+    res: dict[str, float] = {"analysis (once per member)": t_resp, "demands per candidate (vectorised)": t_dem}
+    if m.standard.startswith("AISC"):
+        t = time.perf_counter()
+        Ds = []
+        for d in dem:
+            M, V = d.diagrams()
+            Ds.append(aisc360.demands(x=d.x, M=M, V=V, supports=ctx["supports"], bracing=ctx["bracing"]))
+        res["aisc360.demands() per candidate"] = (time.perf_counter() - t) / n
+        t = time.perf_counter()
+        for s, D in zip(secs, Ds):
+            aisc360.check_member(s, m.grade, method=m.method, demands=D, steps=False)
+        res["aisc360.check_member(demands=D) per candidate"] = (time.perf_counter() - t) / n
+    else:
+        t = time.perf_counter()
+        for s, d in zip(secs, dem):
+            en1993.check_member(s, m.grade, x=d.x, M=(d.M_max, d.M_min), V=(d.V_max, d.V_min),
+                                restraints="continuous", steps=False)
+        res["en1993.check_member (bending, shear) per candidate"] = (time.perf_counter() - t) / n
+        if m.bracing != "continuous":
+            t, k = time.perf_counter(), 0
+            for s, d in zip(secs, dem):
+                M, _ = d.diagrams()
+                for a, b in m.segments():
+                    inside = (d.x > a) & (d.x < b)
+                    xs = np.concatenate(([a], d.x[inside], [b]))
+                    Mc = next(iter(M.values()))
+                    Ms = np.concatenate(([np.interp(a, d.x, Mc)], Mc[inside], [np.interp(b, d.x, Mc)]))
+                    en1993.ltb(s, m.grade, L=ctx["length_q"](b - a), moment_diagram=(xs - a, Ms), steps=False)
+                    k += 1
+            res["en1993.ltb per call (energy-method Mcr)"] = (time.perf_counter() - t) / k
+    check = checker_for(m)
+    t = time.perf_counter()
+    for s, d in zip(secs, dem):
+        check(m, s, d, False)
+    res["whole check per candidate (calckit.pick.checks)"] = (time.perf_counter() - t) / n
+    return res
+
+
+def bench_girders(repeat: int = 3) -> list[tuple[str, float, object]]:
+    from calckit.pick import member
+    from calckit.proportion import plate_stock, proportion
+
+    stock = plate_stock("SI", widths=[f"{b} mm" for b in range(200, 651, 50)])  # 15 thicknesses, 10 widths
+    cases = {
+        "EN 1993-1-1, 20 m, S355, restraints at quarter points":
+            (member("20 m", dead_udl="30 kN/m", live_udl="40 kN/m", standard="EN 1993-1-1", grade="S355",
+                    bracing="quarters"), "none"),
+        "AISC 360-22 LRFD, 20 m, A572-50, braced at quarter points":
+            (member("20 m", dead_udl="30 kN/m", live_udl="40 kN/m", grade="A572-50", bracing="quarters"), "none"),
+        "AISC 360-22 LRFD, 12 m heavy, A572-50, stiffeners allowed":
+            (member("12 m", dead_udl="80 kN/m", live_udl="120 kN/m", grade="A572-50"), "allow"),
+    }
+    out = []
+    for label, (m, stiff) in cases.items():
+        proportion(m, web_depth=("800 mm", "2000 mm"), stock=stock, stiffeners=stiff)  # warm-up
+        runs = []
+        for _ in range(repeat):
+            runs.append(proportion(m, web_depth=("800 mm", "2000 mm"), stock=stock, stiffeners=stiff))
+        best = min(runs, key=lambda r: r.elapsed)
+        out.append((label, best.elapsed, best))
+    return out
+
+
+def main() -> None:
+    print("Section search, whole catalog (W + IPE + HEA + HEB), every check incl. deflection, self-weight per candidate")
+    for label, n, best, med, tm in bench_search():
+        stages = ", ".join(f"{k} {v * 1e3:.1f}" for k, v in tm.items())
+        print(f"  {label}: {n} sections, best {best * 1e3:.1f} ms, median {med * 1e3:.1f} ms "
+              f"({best / n * 1e6:.0f} us/section; stages ms: {stages}) -> goal {GOAL_SEARCH_S * 1e3:.0f} ms "
+              f"{'met' if best <= GOAL_SEARCH_S else 'NOT met'}")
+    print("\nWhere the time goes (mean per candidate, first 60 catalog sections):")
+    ms = _members()
+    for label in ("AISC LRFD, 35 ft simple span, braced at thirds", "EN 1993-1-1, 6 m simple span, restraint at midspan"):
+        print(f"  {label}:")
+        for k, v in per_check(ms[label]).items():
+            print(f"    {k}: {v * 1e3:.3f} ms")
+    print("\nGirder proportioning, stock of 15 thicknesses x 10 widths, webs 8-25 mm, web depth 0.8-2.0 m by 50 mm")
+    for label, t, r in bench_girders():
+        c = r.chosen
+        print(f"  {label}: {t:.2f} s ({r.n_combinations} proportions, {r.n_pruned} pruned by bounds, "
+              f"{r.n_checked} fully checked; stages s: "
+              + ", ".join(f"{k} {v:.2f}" for k, v in r.timings.items())
+              + f") -> goal {GOAL_GIRDER_S:.0f} s {'met' if t <= GOAL_GIRDER_S else 'NOT met'}")
+        if c is not None:
+            print(f"    lightest: {c.name()} {c.mass:.1f} kg/m, {c.governing} {c.ratio:.2f}")
+
+
+if __name__ == "__main__":
+    main()
