@@ -42,9 +42,10 @@ from .loads import Couple, LinearLoad, PointLoad, Support
 from .piecewise import Extreme
 from .results import BeamResult, BeamSolution, Extrema, Reaction
 from .combinations import Combination, combinations, user_combinations
+from .patterns import arrangements
 
 __all__ = [
-    "Combination", "combinations", "user_combinations",
+    "Combination", "combinations", "user_combinations", "arrangements",
     "Beam", "BeamSolution", "BeamResult", "Reaction", "Extrema", "Extreme",
     "Envelope", "SpanEnvelope", "EnvelopeExtreme", "envelope",
     "PointLoad", "Couple", "LinearLoad", "Support", "UnstableError",
