@@ -6,7 +6,7 @@ import pytest
 
 import calckit
 from calckit.design import en1993
-from calckit.errors import InputError, NotCoveredError
+from calckit.errors import InputError
 
 
 def udl_arrays(w, L, n=101):
@@ -62,8 +62,12 @@ def test_two_span_hogging_checked():
 def test_bad_inputs():
     s = calckit.section("IPE 300")
     x, M, V = udl_arrays(10e3, 6.0)
-    with pytest.raises(NotCoveredError, match="overhang"):
-        en1993.check_member(s, "S235", x=x, M=M, V=V, restraints=[1.0, 6.0])
+    with pytest.raises(InputError, match="restraints"):
+        en1993.check_member(s, "S235", x=x, M=M, V=V, restraints=[])
+    with pytest.raises(InputError, match="restraints"):
+        en1993.check_member(s, "S235", x=x, M=M, V=V, restraints=[0.0, 7.0])  # beyond the member
+    with pytest.raises(InputError, match="overhang_root"):
+        en1993.check_member(s, "S235", x=x, M=M, V=V, restraints=[1.0, 6.0], overhang_root="pinned")
     with pytest.raises(InputError):
         en1993.check_member(s, "S235", x=x[::-1], M=M, V=V)
     with pytest.raises(InputError):

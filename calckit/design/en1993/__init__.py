@@ -10,6 +10,9 @@ Public API (units at the boundary: pint quantities or strings such as "5.7 m", "
     en1993.deflection(delta, span, kind="total")                # 7.2 (limits from the annex set)
     en1993.classify(section, steel)                             # Table 5.2
     en1993.check_member(section, steel, x=..., M=..., V=..., restraints=..., forces=..., deflections=...)
+    D = en1993.demands(x=..., M=..., V=..., restraints=..., zg=...)   # once per member, for a search:
+    en1993.check_member(section, steel, demands=D, steps=False)       # then per section
+    en1993.ltb(section, steel, L="2 m", moment_diagram="udl", cantilever=True)   # free-ended segment
     en1993.annex_set("recommended" | "UK" | {...})              # partial factors and national choices
 
 Every check returns an :class:`ENResult` (a CheckResult whose data entries are attributes:
@@ -32,10 +35,11 @@ from .deflection import deflection
 from .factors import AnnexSet, annex_set, known_sets
 from .ltb import chi_lt, ltb
 from .mcr import equivalent_factors, mcr_energy, mcr_formula
+from .demands import Demands, demands
 from .member import Force, check_member, from_analysis
 from .shear import shear
 from .transverse import transverse
 
 __all__ = ["bending", "shear", "ltb", "transverse", "deflection", "classify", "check_member", "Force",
            "from_analysis", "annex_set", "known_sets", "AnnexSet", "ENResult", "Classification", "chi_lt",
-           "mcr_formula", "mcr_energy", "equivalent_factors"]
+           "mcr_formula", "mcr_energy", "equivalent_factors", "demands", "Demands"]

@@ -59,8 +59,30 @@ def _fy(st, t: float, what: str) -> float:
         raise InputError(f"{what} (t = {t * 1e3:.4g} mm), steel {st.name}: {exc}") from None
 
 
+_MATERIALS: dict = {}
+
+
 def material(section_si, steel, fy=None) -> Material:
-    """Yield strengths for ``section_si`` in ``steel`` (a grade name or calckit Steel); ``fy`` overrides."""
+    """Yield strengths for ``section_si`` in ``steel`` (a grade name or calckit Steel); ``fy`` overrides.
+
+    For a grade name without ``fy`` the result is kept per (grade, plate thicknesses): a section search
+    asks for the same few combinations many times."""
+    key = None
+    if fy is None and isinstance(steel, str):
+        s = section_si
+        key = (steel, s.tf_top, s.tf_bot, s.tw)
+        m = _MATERIALS.get(key)
+        if m is not None:
+            return m
+    m = _material(section_si, steel, fy)
+    if key is not None:
+        if len(_MATERIALS) > 512:
+            _MATERIALS.clear()
+        _MATERIALS[key] = m
+    return m
+
+
+def _material(section_si, steel, fy=None) -> Material:
     from ...materials import steel as get_steel
 
     st = get_steel(steel)

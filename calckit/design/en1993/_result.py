@@ -6,7 +6,7 @@ from dataclasses import dataclass
 
 from ..results import CheckResult
 
-__all__ = ["ENResult"]
+__all__ = ["ENResult", "rated"]
 
 
 @dataclass(frozen=True)
@@ -24,3 +24,14 @@ class ENResult(CheckResult):
         if data is not None and name in data:
             return data[name]
         raise AttributeError(f"{type(self).__name__} has no attribute or data entry {name!r}")
+
+
+def rated(demand: float | None = None, **fields) -> ENResult:
+    """An :class:`ENResult` with ``demand``, ``ratio`` and ``passed`` filled in exactly as
+    :meth:`CheckResult.with_demand` does, built in one step (no copy: this runs per section in a search)."""
+    if demand is not None:
+        cap = fields["capacity"]
+        d = abs(demand)
+        ratio = d / cap if cap > 0 else float("inf")
+        fields["demand"], fields["ratio"], fields["passed"] = d, ratio, ratio <= 1.0 + 1e-9
+    return ENResult(**fields)

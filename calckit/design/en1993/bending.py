@@ -22,7 +22,7 @@ from dataclasses import dataclass
 from ...errors import NotCoveredError
 from ._calc import Calc, condition, formula
 from ._common import STANDARD, Material, demand, length, material, section_props
-from ._result import ENResult
+from ._result import ENResult, rated
 from .classify import Classification, classify_si
 from .effective import effective_section
 from .factors import AnnexSet, annex_set
@@ -209,7 +209,6 @@ def result(r: BendingCalc, mat, ann, M, calc, location=None, combination="") -> 
         ls, clause = "Bending", f"{STANDARD} 6.2.5"
     if r.cls.cls == 4:
         clause += "; EN 1993-1-5:2006 4.4"
-    res = ENResult(limit_state=ls, clause=clause, dim="moment", capacity=r.M_Rd, nominal=r.M_Rd * ann.gamma_M0,
-                   method="EN", steps=calc.take(), data=data, location=location, combination=combination,
-                   note=f"Class {r.cls.cls} ({r.W_name})")
-    return res.with_demand(M) if M is not None else res
+    return rated(M, limit_state=ls, clause=clause, dim="moment", capacity=r.M_Rd,
+                 nominal=r.M_Rd * ann.gamma_M0, method="EN", steps=calc.take(), data=data, location=location,
+                 combination=combination, note=f"Class {r.cls.cls} ({r.W_name})")

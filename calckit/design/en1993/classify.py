@@ -171,8 +171,9 @@ def classify_si(s, mat: Material, *, sagging: bool = True, N_Ed: float = 0.0, M_
             wcls = i + 1
             break
     cls = max(fcls, wcls)
-    calc.say(f"Section {s.name or ''} is Class {cls} (flange Class {fcls}, web Class {wcls}); the class of a "
-             "section is that of its least favourable compression part", "EN 1993-1-1:2005 5.5.2(6)")
+    if calc.steps:
+        calc.say(f"Section {s.name or ''} is Class {cls} (flange Class {fcls}, web Class {wcls}); the class of a "
+                 "section is that of its least favourable compression part", "EN 1993-1-1:2005 5.5.2(6)")
     recs = tuple(calc.records[n0:]) if calc.steps else ()
     return Classification(cls, fcls, wcls, eps, fy, "top" if top else "bottom", c_f, tf, c_w, s.tw, alpha,
                           psi, tuple(fl), wl, recs if own or calc.steps else (), note)

@@ -12,7 +12,7 @@ import numpy as np
 from ...errors import InputError
 from ._calc import Calc, formula
 from ._common import length
-from ._result import ENResult
+from ._result import ENResult, rated
 from .factors import annex_set
 
 __all__ = ["deflection", "deflection_limit"]
@@ -56,9 +56,8 @@ def deflection(delta, span, *, kind: str = "total", limit: float | None = None, 
     calc = Calc(steps)
     w = calc(F_LIM, L=L, n_lim=n, note=f"{kind} deflection; {src}")
     i = int(np.argmax(d))
-    res = ENResult(limit_state=f"Deflection ({kind}{', ' + name if name else ''})",
-                   clause="EN 1993-1-1:2005 7.2.1", dim="deflection", capacity=w, method="",
-                   steps=calc.take(), data={"limit": n, "limit_source": src, "kind": kind, "span": L,
-                                            "annex": ann.name, "index": i},
-                   location=location, combination=name)
-    return res.with_demand(float(d[i]))
+    return rated(float(d[i]), limit_state=f"Deflection ({kind}{', ' + name if name else ''})",
+                 clause="EN 1993-1-1:2005 7.2.1", dim="deflection", capacity=w, method="",
+                 steps=calc.take(), data={"limit": n, "limit_source": src, "kind": kind, "span": L,
+                                          "annex": ann.name, "index": i},
+                 location=location, combination=name)

@@ -31,6 +31,7 @@ class AnnexSet:
     gamma_M0: float = 1.0  #: EN 1993-1-1 6.1(1)
     gamma_M1: float = 1.0  #: EN 1993-1-1 6.1(1)
     gamma_M2: float = 1.25  #: EN 1993-1-1 6.1(1)
+    gamma_M2_welds: float = 1.25  #: EN 1993-1-8 2.2 Table 2.1 (welds; a National Annex may differ from 1-1's)
     eta: float = 1.2  #: EN 1993-1-5 5.1(2), for grades up to S460
     ltb_method: str = "general"  #: "general" (6.3.2.2) or "rolled" (6.3.2.3)
     lambda_LT_0: float = 0.4  #: 6.3.2.3(1), rolled sections
@@ -54,7 +55,7 @@ _FIELDS = {f.name: f for f in fields(AnnexSet)}
 
 
 def _check(name: str, s: AnnexSet) -> AnnexSet:
-    for k in ("gamma_M0", "gamma_M1", "gamma_M2"):
+    for k in ("gamma_M0", "gamma_M1", "gamma_M2", "gamma_M2_welds"):
         v = getattr(s, k)
         if not (isinstance(v, (int, float)) and 0.5 <= v <= 2.0):
             raise InputError(f"annex {name!r} {k}: got {v!r}; expected a partial factor between 0.5 and 2.0")

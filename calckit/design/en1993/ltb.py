@@ -12,7 +12,11 @@
 - 6.3.2.2(4): for lambda_LT <= lambda_LT,0 (or M_Ed/M_cr <= lambda_LT,0^2) buckling effects may be
   ignored; calckit reports it and uses chi_LT from the curve (which is 1 on the plateau of 6.3.2.3 and
   slightly below 1 between 0.2 and 0.4 for the general case, conservative).
-M_cr: :mod:`.mcr` (three-factor formula with C1, C2, C3 from the moment diagram).
+M_cr: :mod:`.mcr` (three-factor formula with C1, C2, C3 from the moment diagram) for segments between
+lateral-torsional restraints; for a cantilever or an overhang (one free end) M_cr comes directly from the
+energy solution of :mod:`.cantilever` (built-in root, or the overhang solved with the segment behind its
+root support), shown as M_cr = gamma_cr sqrt(E I_z G I_t)/L with gamma_cr from that solution; C1 is not
+used there, and f = 1 (Table 6.6 lists no cantilever case).
 
 Table 6.6 k_c (EN 1993-1-1:2005, from memory): uniform 1.0; linear 1/(1.33 - 0.33 psi); simply supported
 UDL 0.94; UDL with both ends fixed 0.90; UDL with one end fixed 0.91; central point load 0.86; with both
@@ -25,16 +29,18 @@ import math
 
 import numpy as np
 
-from ...errors import InputError, NotCoveredError
+from ...errors import InputError
 from ._calc import Calc, condition, formula
 from ._common import STANDARD, Material, demand, length, material, section_props, value
-from ._result import ENResult
+from ._result import ENResult, rated
 from .bending import section_modulus
 from .classify import classify_si
 from .factors import AnnexSet, annex_set
-from .mcr import SN003_TABLE, equivalent_factors, mcr_formula, standard_diagram, z_j
+from .cantilever import OverhangModel, gamma_cr, model as _cant_model
+from .mcr import SN003_TABLE, shape, standard_diagram, z_j
 
-__all__ = ["ltb", "ltb_si", "chi_lt", "imperfection", "kc_table66", "ALPHA_LT", "Diagram", "diagram"]
+__all__ = ["ltb", "ltb_si", "chi_lt", "imperfection", "kc_table66", "ALPHA_LT", "Diagram", "diagram",
+           "cantilever_diagram", "overhang_model"]
 
 _R = "EN 1993-1-1:2005"
 ALPHA_LT = {"a0": 0.13, "a": 0.21, "b": 0.34, "c": 0.49, "d": 0.76}  #: Table 6.3
@@ -45,6 +51,11 @@ F_MCR = formula("M_cr", "C_1*pi**2*E*I_z/(k*L)**2*(sqrt((k/k_w)**2*I_w/I_z + (k*
                 " + (C_2*z_g - C_3*z_j)**2) - (C_2*z_g - C_3*z_j))",
                 "ENV 1993-1-1:1992 Annex F Eq. (F.2); NCCI SN003 Eq. (1)", "elastic critical moment",
                 dims=_DIMS_MCR)
+F_MCR_CANT = formula("M_cr", "gamma_cr*sqrt(E*I_z*G*I_t)/L",
+                     "energy solution of the cantilever (Timoshenko and Gere 1961, 6.4 form); calckit.design."
+                     "en1993.cantilever", "elastic critical moment, cantilever",
+                     dims={"M_cr": "moment", "E": "stress", "G": "stress", "I_z": "inertia", "I_t": "inertia",
+                           "L": "span"})
 F_LAM = formula("lam_bar_LT", "sqrt(W_y*f_y/M_cr)", _R + " 6.3.2.2(1)", "non-dimensional slenderness",
                 dims={"W_y": "modulus", "f_y": "stress", "M_cr": "moment"})
 F_PHI_G = formula("Phi_LT", "0.5*(1 + alpha_LT*(lam_bar_LT - 0.2) + lam_bar_LT**2)", _R + " 6.3.2.2(1)",
@@ -99,10 +110,19 @@ def chi_lt(lam: float, curve: str = "b", method: str = "general", lambda_0: floa
 class Diagram:
     """A segment's moment diagram: M(xi) on xi = x/L in [0, 1] (N m, sagging positive) and its peak."""
 
-    __slots__ = ("fn", "Mmax", "M_peak_signed", "scaled", "label")
+    __slots__ = ("fn", "Mmax", "M_peak_signed", "scaled", "label", "shapes")
 
     def __init__(self, fn, Mmax: float, M_peak_signed: float, scaled: bool, label: str) -> None:
         self.fn, self.Mmax, self.M_peak_signed, self.scaled, self.label = fn, Mmax, M_peak_signed, scaled, label
+        self.shapes: dict = {}  #: (k, k_w) -> energy Shape of this diagram (kept for reuse across sections)
+
+    def factors(self, L: float, EIz: float, GIt: float, EIw: float, zg: float = 0.0, zj: float = 0.0,
+                k: float = 1.0, kw: float = 1.0):
+        """C1, C2, C3 of this diagram (:func:`.mcr.equivalent_factors`, with the diagram's Shape kept)."""
+        sh = self.shapes.get((k, kw))
+        if sh is None:
+            sh = self.shapes[(k, kw)] = shape(self.fn, k, kw, self.Mmax)[0]
+        return sh.factors(L, EIz, GIt, EIw, zg, zj, k, kw)
 
 
 def _arr(v, dim: str, name: str) -> np.ndarray:
@@ -213,8 +233,13 @@ def _curve(s, method: str, annex: AnnexSet) -> tuple[str, float]:
 
 def ltb_si(s, mat: Material, annex: AnnexSet, *, L: float, C1=None, C2=None, C3=None, dia: Diagram | None = None,
            zg: float = 0.0, k: float = 1.0, kw: float = 1.0, method: str | None = None, use_f=None,
-           sagging: bool | None = None, calc: Calc | None = None, cl=None) -> dict:
-    """Numeric core of :func:`ltb`; returns the data dict (SI floats) with ``M_b_Rd``."""
+           sagging: bool | None = None, calc: Calc | None = None, cl=None,
+           cantilever: OverhangModel | None = None) -> dict:
+    """Numeric core of :func:`ltb`; returns the data dict (SI floats) with ``M_b_Rd``.
+
+    ``cantilever``: the energy model of a segment with a free end (:class:`.cantilever.OverhangModel`);
+    then ``dia`` is the cantilever's own diagram (root to tip), C1, C2, C3 are not used, and k, k_w are
+    ignored (the model fixes the end conditions)."""
     calc = calc or Calc(False)
     method = method or annex.ltb_method
     if method not in ("general", "rolled"):
@@ -230,27 +255,41 @@ def ltb_si(s, mat: Material, annex: AnnexSet, *, L: float, C1=None, C2=None, C3=
     E, G = mat.E, mat.G
     EIz, GIt, EIw = E * s.Iy, G * s.J, E * s.Cw
     Mcr_energy = None
-    if C1 is None:
+    Mcr = None
+    if cantilever is not None:
+        if C1 is not None or C2 is not None or C3 is not None:
+            raise InputError(f"C1: got {C1!r}; a cantilever's M_cr comes from its energy solution, leave C1, C2 "
+                             "and C3 out")
+        Mcr_energy = cantilever.mcr(EIz, GIt, EIw, zg=zg, zj=zj_up)
+        calc.say(f"Free-ended segment: {cantilever.describe()}; M_cr by the energy method with all transverse "
+                 f"loads at z_g = {zg * 1e3:.4g} mm above the shear centre",
+                 "Timoshenko and Gere (1961) ch. 6; Trahair (1993); see calckit.design.en1993.cantilever")
+        gam = calc.given("gamma_cr", gamma_cr(Mcr_energy, L, EIz, GIt),
+                         reference="energy solution: M_cr L / sqrt(E I_z G I_t)")
+        Mcr = calc(F_MCR_CANT, gamma_cr=gam, E=E, G=G, I_z=s.Iy, I_t=s.J, L=L)
+        notes.append(cantilever.describe())
+    elif C1 is None:
         if dia is None:
             C1, C2, C3 = 1.0, 0.0, 1.0
             notes.append("no moment diagram given: uniform moment taken (C1 = 1)")
             calc.say("No moment diagram given: uniform moment, C1 = 1.0, C3 = 1.0", "NCCI SN003 Table 3.1")
         else:
-            fa = equivalent_factors(L, EIz, GIt, EIw, dia.fn, zg=zg, zj=zj_up, k=k, kw=kw, Mmax=dia.Mmax)
+            fa = dia.factors(L, EIz, GIt, EIw, zg=zg, zj=zj_up, k=k, kw=kw)
             C1, Mcr_energy = fa.C1, fa.Mcr_energy
             C2 = fa.C2 if C2 is None else C2
             C3 = (fa.C3 if zj_up else 1.0) if C3 is None else C3
             if not sagging and zj_up and C3 is not None:
                 C3 = -C3 if fa.C3 else C3  # factors were found with z_j upwards; formula uses z_j to the compression flange
-            calc.say(f"C1 = {C1:.3f}" + (f", C2 = {C2:.3f}" if zg else "") + (f", C3 = {C3:.3f}" if zj else "")
-                     + f" from the moment diagram ({dia.label}) by {fa.method}",
-                     "Timoshenko and Gere (1961) 6.3; Trahair (1993); see calckit.design.en1993.mcr")
+            if calc.steps:
+                calc.say(f"C1 = {C1:.3f}" + (f", C2 = {C2:.3f}" if zg else "") + (f", C3 = {C3:.3f}" if zj else "")
+                         + f" from the moment diagram ({dia.label}) by {fa.method}",
+                         "Timoshenko and Gere (1961) 6.3; Trahair (1993); see calckit.design.en1993.mcr")
     else:
         if C2 is None:
             C2 = 0.0
             if zg:
                 if dia is not None:
-                    fa = equivalent_factors(L, EIz, GIt, EIw, dia.fn, zg=zg, k=k, kw=kw, Mmax=dia.Mmax)
+                    fa = dia.factors(L, EIz, GIt, EIw, zg=zg, k=k, kw=kw)
                     C2 = fa.C2
                     notes.append(f"C2 = {C2:.3f} from the moment diagram (energy solution)")
                 else:
@@ -266,14 +305,15 @@ def ltb_si(s, mat: Material, annex: AnnexSet, *, L: float, C1=None, C2=None, C3=
             C3 = 1.0
             if zj:
                 if dia is not None:
-                    fa = equivalent_factors(L, EIz, GIt, EIw, dia.fn, zj=zj_up, k=k, kw=kw, Mmax=dia.Mmax)
+                    fa = dia.factors(L, EIz, GIt, EIw, zj=zj_up, k=k, kw=kw)
                     C3 = fa.C3 if sagging else -fa.C3  # factors found with z_j upwards
                 elif abs(C1 - 1.0) > 1e-9:
                     raise InputError("C3: no value given; a mono-symmetric section with C1 != 1 needs C3 or a "
                                      "moment_diagram")
         calc.say(f"C1 = {C1:g} given", "input")
-    Mcr = calc(F_MCR, C_1=C1, C_2=C2, C_3=C3, E=E, G=G, I_z=s.Iy, I_t=s.J, I_w=s.Cw, L=L, k=k, k_w=kw,
-               z_g=zg, z_j=zj)
+    if Mcr is None:
+        Mcr = calc(F_MCR, C_1=C1, C_2=C2, C_3=C3, E=E, G=G, I_z=s.Iy, I_t=s.J, I_w=s.Cw, L=L, k=k, k_w=kw,
+                   z_g=zg, z_j=zj)
     if not Mcr > 0:
         raise InputError(f"M_cr: got {Mcr:.4g} N m from the three-factor formula; check C1, C2, z_g")
     lam = calc(F_LAM, W_y=W, f_y=mat.fy, M_cr=Mcr)
@@ -294,7 +334,10 @@ def ltb_si(s, mat: Material, annex: AnnexSet, *, L: float, C1=None, C2=None, C3=
     case = ""
     chi_used = chi
     apply_f = annex.ltb_f if use_f is None else bool(use_f)
-    if apply_f and method == "rolled":
+    if apply_f and method == "rolled" and cantilever is not None:
+        notes.append("cantilever: f = 1 (EN 1993-1-1 Table 6.6 gives k_c for members between restraints only)")
+        calc.say(notes[-1], f"{_R} 6.3.2.3(2)")
+    elif apply_f and method == "rolled":
         if annex.kc_rule == "1/sqrt(C1)":
             kc = calc(F_KC_C1, C_1=C1)
             case = "k_c = 1/sqrt(C1)"
@@ -318,12 +361,15 @@ def ltb_si(s, mat: Material, annex: AnnexSet, *, L: float, C1=None, C2=None, C3=
             "kc_case": case, "Phi_LT": phi, "alpha_LT": alpha, "curve": curve, "h_b": hb, "method": method,
             "lambda_LT_0": lam0, "beta": beta, "plateau": plateau, "W_y": W, "W": Wn, "class": cl.cls,
             "fy": mat.fy, "L": L, "annex": annex.name, "gamma_M1": annex.gamma_M1, "notes": tuple(notes),
-            "compression_flange": "top" if sagging else "bottom"}
+            "compression_flange": "top" if sagging else "bottom",
+            "support": "forks" if cantilever is None else ("overhang" if cantilever.back else "cantilever"),
+            "gamma_cr": None if cantilever is None else gamma_cr(Mcr, L, EIz, GIt)}
 
 
 def ltb(section, steel, L=None, C1=None, moment_diagram=None, zg=0, method: str | None = None, *, M_Ed=None,
         C2=None, C3=None, k: float = 1.0, kw: float = 1.0, use_f: bool | None = None, sagging: bool | None = None,
-        annex=None, fy=None, steps: bool = True, segment=None, location=None, combination: str = "") -> ENResult:
+        annex=None, fy=None, steps: bool = True, segment=None, location=None, combination: str = "",
+        cantilever: bool = False, backspan=None) -> ENResult:
     """Lateral-torsional buckling resistance M_b,Rd of an I-section segment of length ``L`` between
     lateral-torsional restraints, EN 1993-1-1 6.3.2.2 (``method="general"``) or 6.3.2.3 (``"rolled"``;
     default: the annex set's choice).
@@ -331,8 +377,17 @@ def ltb(section, steel, L=None, C1=None, moment_diagram=None, zg=0, method: str 
     ``C1`` (and ``C2``, ``C3``) given, or derived from ``moment_diagram`` (see :func:`diagram`); ``zg``:
     load height above the shear centre (positive above, destabilising); ``k``, ``kw``: end restraint
     factors; ``M_Ed``: design moment (default: the peak of a dimensioned ``moment_diagram``).
+
+    ``cantilever=True``: a segment of length ``L`` with a free tip (:mod:`.cantilever`). ``moment_diagram``
+    then runs from the root (x = 0) to the tip (x = L): 'point' (load at the tip, M = -P (L - x)), 'udl'
+    (M = -w (L - x)^2 / 2), 'uniform' (a moment at the tip), or a dimensioned diagram as above (sagging
+    positive). Without ``backspan`` the root is built in (lateral bending and warping prevented there);
+    ``backspan=(L_b, moment_diagram_b)`` solves an overhang together with the segment behind its root
+    support, from the next restraint (x = 0) to the root (x = L_b), with the same combination's moments
+    (both diagrams dimensioned). C1, C2, C3, k and k_w do not apply.
+
     Returns an :class:`ENResult` with ``capacity`` = M_b,Rd and ``.Mcr``, ``.chi_LT``, ``.lambda_LT``,
-    ``.C1`` ... (SI floats).
+    ``.C1`` ... (SI floats; ``.C1`` is None for a cantilever, ``.gamma_cr`` = M_cr L / sqrt(E I_z G I_t)).
     """
     s = section_props(section)
     ann = annex_set(annex)
@@ -347,14 +402,67 @@ def ltb(section, steel, L=None, C1=None, moment_diagram=None, zg=0, method: str 
             raise InputError(f"{nm}: got {cc!r}; expected a number")
     if C1 is not None and not C1 > 0:
         raise InputError(f"C1: got {C1!r}; expected C1 > 0")
-    dia = diagram(moment_diagram, L_)
+    cant = None
+    if cantilever:
+        dia = cantilever_diagram(moment_diagram, L_)
+        back = None
+        if backspan is not None:
+            try:
+                Lb_raw, md_b = backspan
+            except (TypeError, ValueError):
+                raise InputError(f"backspan: got {backspan!r}; expected (L_b, moment_diagram_b)") from None
+            Lb = length(Lb_raw, "backspan length")
+            back = (Lb, diagram(md_b, Lb))
+            if back[1] is None:
+                raise InputError("backspan: no moment diagram given for the back segment")
+        cant = overhang_model(dia, L_, back)
+    elif backspan is not None:
+        raise InputError("backspan: given for a segment between restraints; it applies with cantilever=True only")
+    else:
+        dia = diagram(moment_diagram, L_)
     M = demand(M_Ed, "moment", "M_Ed")
     if M is None and dia is not None and dia.scaled:
         M = dia.Mmax
     calc = Calc(steps)
     d = ltb_si(s, mat, ann, L=L_, C1=C1, C2=C2, C3=C3, dia=dia, zg=zg_, k=float(k), kw=float(kw), method=method,
-               use_f=use_f, sagging=sagging, calc=calc)
+               use_f=use_f, sagging=sagging, calc=calc, cantilever=cant)
     return result(d, calc, M, segment, location, combination)
+
+
+_CANT_SHAPES = {"point": lambda q: -(1.0 - q), "udl": lambda q: -(1.0 - q) ** 2,
+                "uniform": lambda q: -np.ones_like(q)}
+
+
+def cantilever_diagram(moment_diagram, L: float) -> Diagram:
+    """A cantilever's diagram from the root (x = 0) to the tip (x = L): 'point', 'udl', 'uniform' (gravity
+    loads, hogging) or any form read by :func:`diagram`."""
+    if moment_diagram is None:
+        raise InputError("moment_diagram: no value given; a cantilever needs its moment diagram ('point', 'udl', "
+                         "'uniform', or (x, M) from the root to the tip)")
+    if isinstance(moment_diagram, str):
+        fn = _CANT_SHAPES.get(moment_diagram)
+        if fn is None:
+            raise InputError(f"moment_diagram: got {moment_diagram!r}; expected 'point', 'udl' or 'uniform' for a "
+                             "cantilever, or (x, M) arrays from the root to the tip")
+        return Diagram(fn, 1.0, -1.0, False, f"cantilever, {moment_diagram}")
+    return diagram(moment_diagram, L)
+
+
+def overhang_model(dia: Diagram, L: float, back: "tuple[float, Diagram] | None" = None) -> OverhangModel:
+    """The energy model (:func:`.cantilever.model`, cached) of a cantilever with diagram ``dia`` (root to
+    tip), built in, or with the back segment ``back = (L_b, diagram from the far restraint to the root)``."""
+    Mo = (lambda s_, f=dia.fn: f(np.asarray(s_) / L))
+    if back is None:
+        return _cant_model(L, Mo)
+    Lb, db = back
+    if not (dia.scaled and db.scaled):
+        raise InputError("backspan: the overhang and back-segment diagrams must both be dimensioned (x, M) from "
+                         "the same load combination (a named diagram has no scale)")
+    Mo0, Mb1 = float(dia.fn(np.array([0.0]))[0]), float(db.fn(np.array([1.0]))[0])
+    if abs(Mo0 - Mb1) > 0.02 * max(dia.Mmax, db.Mmax):
+        raise InputError(f"backspan: M at the root is {Mo0:.4g} N m on the overhang and {Mb1:.4g} N m on the back "
+                         "segment; expected the same combination's diagram on both sides")
+    return _cant_model(L, Mo, (Lb, lambda t, f=db.fn: f(np.asarray(t) / Lb)))
 
 
 def result(d: dict, calc: Calc, M, segment=None, location=None, combination="") -> ENResult:
@@ -362,7 +470,7 @@ def result(d: dict, calc: Calc, M, segment=None, location=None, combination="") 
     note = "; ".join(d["notes"])
     if d["plateau"]:
         note = (note + "; " if note else "") + "lambda_LT <= lambda_LT,0: LTB may be ignored (6.3.2.2(4))"
-    res = ENResult(limit_state="Lateral-torsional buckling", clause=clause, dim="moment", capacity=d["M_b_Rd"],
-                   nominal=d["M_b_Rd"] * d["gamma_M1"], method="EN", steps=calc.take(), data=d, note=note,
-                   segment=segment, location=location, combination=combination)
-    return res.with_demand(M) if M is not None else res
+    return rated(M, limit_state="Lateral-torsional buckling", clause=clause, dim="moment",
+                 capacity=d["M_b_Rd"], nominal=d["M_b_Rd"] * d["gamma_M1"], method="EN", steps=calc.take(),
+                 data=d, note=note,
+                 segment=segment, location=location, combination=combination)

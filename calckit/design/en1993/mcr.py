@@ -28,7 +28,13 @@ energy solution with the load height alone and with mono-symmetry alone. The res
 three-factor formula with these factors.
 
 Only k, k_w in {1.0, 0.5} can be derived this way; other values need C1 (and C2) given explicitly.
-A segment with a free (untwisted-restrained) end, e.g. a cantilever tip, is not covered.
+A segment with a free end (a cantilever or an overhang) is solved by :mod:`.cantilever` instead.
+
+Speed (section search): the diagram-dependent parts of the energy solution are kept in a :class:`Shape`
+per normalised diagram and end conditions (cached by :func:`shape`), so that for each section only the
+diagonal stiffness changes; with z_g = z_j = 0 the 2N x 2N eigenproblem reduces exactly to an N x N one
+(see :class:`Shape`). :func:`mcr_energy` keeps the direct dense solve as the reference; the two agree to
+about 1e-12 (tests/test_en1993_fast_paths.py).
 """
 from __future__ import annotations
 
@@ -40,8 +46,8 @@ import numpy as np
 
 from ...errors import InputError, NotCoveredError
 
-__all__ = ["mcr_formula", "mcr_energy", "equivalent_factors", "Factors", "z_j", "standard_diagram",
-           "SN003_TABLE"]
+__all__ = ["mcr_formula", "mcr_energy", "equivalent_factors", "Factors", "Shape", "shape", "z_j",
+           "standard_diagram", "SN003_TABLE"]
 
 N_TERMS = 8  #: series terms for u and for phi
 N_SUB = 32  #: quadrature sub-intervals
@@ -71,6 +77,34 @@ def mcr_formula(C1, C2, C3, L, EIz, GIt, EIw, zg=0.0, zj=0.0, k=1.0, kw=1.0) -> 
     h = C2 * zg - C3 * zj
     B = (k / kw) ** 2 * Iw_Iz + kL ** 2 * GIt / (math.pi ** 2 * EIz)
     return C1 * ncr * (math.sqrt(B + h * h) - h)
+
+
+def _eigvalsh_np(a: np.ndarray) -> np.ndarray:
+    return np.linalg.eigvalsh(a)
+
+
+def _fast_eigvalsh():
+    """numpy's LAPACK gufunc behind eigvalsh, without the wrapper's per-call checks (a few microseconds
+    per call, which count in a section search); numpy.linalg.eigvalsh where it is not available or does
+    not agree on a test matrix."""
+    try:
+        from numpy.linalg import _umath_linalg as ul
+
+        fn = ul.eigvalsh_lo
+        t = np.array([[2.0, 1.0, 0.0], [1.0, 3.0, 1.0], [0.0, 1.0, 4.0]])
+        if not np.allclose(fn(t, signature="d->d"), np.linalg.eigvalsh(t), rtol=1e-14, atol=0):
+            return _eigvalsh_np
+
+        def eig(a: np.ndarray) -> np.ndarray:
+            ev = fn(a, signature="d->d")
+            return ev if np.isfinite(ev[0]) else np.linalg.eigvalsh(a)  # failure: let numpy raise / retry
+
+        return eig
+    except Exception:  # pragma: no cover - depends on the numpy build
+        return _eigvalsh_np
+
+
+eigvalsh = _fast_eigvalsh()
 
 
 def _basis_fns(fixed: bool, n: int, xi: np.ndarray):
@@ -120,17 +154,8 @@ def _restraint(k: float, name: str) -> bool:
                           f"{name} = 1.0 (free) or 0.5 (fixed); give C1 (and C2) explicitly for other values")
 
 
-def mcr_energy(L: float, EIz: float, GIt: float, EIw: float, M, zg: float = 0.0, zj: float = 0.0,
-               k: float = 1.0, kw: float = 1.0, Mmax: float | None = None) -> float:
-    """Critical moment (N m, magnitude of the largest |M| of the diagram at buckling) by Rayleigh-Ritz.
-
-    ``M``: callable M(xi) on xi = x/L in [0, 1], or an array of M at the quadrature points; sign
-    convention sagging positive (top flange in compression); zg, zj as in the module docstring, measured
-    upwards (zj > 0 when the top flange is the larger). ``Mmax``: the largest |M| of the diagram (default:
-    from M at the quadrature points and the sub-interval ends; give it when the peak may lie elsewhere).
-    """
-    fu, fp = _restraint(k, "k"), _restraint(kw, "k_w")
-    xi, w, u2, p, p1, p2, mu = _basis(fu, fp)
+def _quad_m(M, xi: np.ndarray, Mmax: float | None) -> tuple[np.ndarray, float]:
+    """(M at the quadrature points, the peak |M| used to normalise), as :func:`mcr_energy` reads them."""
     m = np.asarray(M(xi) if callable(M) else M, dtype=float)
     if Mmax is None:
         mmax = float(np.max(np.abs(m)))
@@ -140,6 +165,24 @@ def mcr_energy(L: float, EIz: float, GIt: float, EIw: float, M, zg: float = 0.0,
         mmax = float(Mmax)
     if not mmax > 0:
         raise InputError("moment_diagram: got zero moment over the segment; no lateral-torsional buckling")
+    return m, mmax
+
+
+def mcr_energy(L: float, EIz: float, GIt: float, EIw: float, M, zg: float = 0.0, zj: float = 0.0,
+               k: float = 1.0, kw: float = 1.0, Mmax: float | None = None) -> float:
+    """Critical moment (N m, magnitude of the largest |M| of the diagram at buckling) by Rayleigh-Ritz.
+
+    ``M``: callable M(xi) on xi = x/L in [0, 1], or an array of M at the quadrature points; sign
+    convention sagging positive (top flange in compression); zg, zj as in the module docstring, measured
+    upwards (zj > 0 when the top flange is the larger). ``Mmax``: the largest |M| of the diagram (default:
+    from M at the quadrature points and the sub-interval ends; give it when the peak may lie elsewhere).
+
+    This is the reference solution (one dense 2N x 2N eigenproblem per call); the section search uses
+    :class:`Shape`, which gives the same values (to rounding) with the diagram-dependent parts reused.
+    """
+    fu, fp = _restraint(k, "k"), _restraint(kw, "k_w")
+    xi, w, u2, p, p1, p2, mu = _basis(fu, fp)
+    m, mmax = _quad_m(M, xi, Mmax)
     wm = w * (m / mmax)
     n = N_TERMS
     # diagonal stiffness in the transformed terms (x = xi L: d/dx = (1/L) d/dxi, dx = L dxi)
@@ -169,28 +212,117 @@ def mcr_energy(L: float, EIz: float, GIt: float, EIw: float, M, zg: float = 0.0,
     return lam  # m is normalised to a peak of 1 N m, so lam is the critical peak moment
 
 
-def equivalent_factors(L: float, EIz: float, GIt: float, EIw: float, M, zg: float = 0.0, zj: float = 0.0,
-                       k: float = 1.0, kw: float = 1.0, Mmax: float | None = None) -> Factors:
-    """C1 (and C2, C3 where z_g, z_j are not zero) reproducing the energy solution, see module docstring."""
+class Shape:
+    """The parts of the energy solution that depend only on the normalised moment diagram of a segment and
+    its end conditions (k, k_w): computed once and reused for every section (same basis, quadrature and
+    eigenproblem as :func:`mcr_energy`, so the values agree with it to rounding).
+
+    Section and length enter only through the diagonal stiffness and the scale of the geometric terms:
+    with z_g = z_j = 0 the eigenvalues of the 2N problem are +- the singular values of the N x N coupling
+    block, so M_cr = 1 / sigma_max comes from an N x N symmetric eigenproblem (the Gram matrix of the
+    scaled block); with z_g or z_j the 2N problem is assembled from the cached blocks.
+    """
+
+    __slots__ = ("fix_u", "fix_phi", "mu", "C0", "CtC", "P1", "Qs")
+
+    def __init__(self, fix_u: bool, fix_phi: bool, m_over_peak: np.ndarray) -> None:
+        xi, w, u2, p, p1, p2, mu = _basis(fix_u, fix_phi)
+        wm = w * m_over_peak
+        self.fix_u, self.fix_phi, self.mu = fix_u, fix_phi, mu
+        self.C0 = (u2 * wm[:, None]).T @ p  # int m u'' phi dxi
+        self.CtC = self.C0.T @ self.C0
+        self.P1 = (p1 * wm[:, None]).T @ p1  # int m phi' phi' dxi
+        q = (p * wm[:, None]).T @ p2  # int m phi phi'' dxi
+        self.Qs = q + q.T
+
+    def mcr(self, L: float, EIz: float, GIt: float, EIw: float, zg: float = 0.0, zj: float = 0.0) -> float:
+        """Critical peak moment (N m) of the segment, as :func:`mcr_energy`."""
+        r_phi = 1.0 / np.sqrt(GIt / L + EIw / L ** 3 * self.mu)
+        if not (zg or zj):
+            H = self.CtC * np.outer(r_phi, r_phi)
+            smax = float(eigvalsh(H)[-1])
+            sigma = math.sqrt(max(smax, 0.0)) * math.sqrt(L ** 3 / EIz) / L
+            if not sigma > 1e-14:
+                raise InputError("moment_diagram: no lateral-torsional buckling under this moment diagram")
+            return 1.0 / sigma
+        n = N_TERMS
+        r = np.empty(2 * n)
+        r[:n] = math.sqrt(L ** 3 / EIz)
+        r[n:] = r_phi
+        G = np.zeros((2 * n, 2 * n))
+        C = self.C0 / L
+        G[:n, n:] = C
+        G[n:, :n] = C.T
+        Gpp = (2.0 * (zj + zg) / L) * self.P1
+        if zg:
+            Gpp = Gpp + (zg / L) * self.Qs
+        G[n:, n:] = Gpp
+        ev = eigvalsh(G * np.outer(r, r))
+        if not ev[0] < -1e-14:
+            raise InputError("moment_diagram: no lateral-torsional buckling under this moment diagram")
+        return -1.0 / float(ev[0])
+
+    def factors(self, L: float, EIz: float, GIt: float, EIw: float, zg: float = 0.0, zj: float = 0.0,
+                k: float = 1.0, kw: float = 1.0) -> Factors:
+        """C1, C2, C3 as :func:`equivalent_factors` (k, k_w must be those the shape was built for)."""
+        return _factors(lambda g, j: self.mcr(L, EIz, GIt, EIw, g, j), L, EIz, GIt, EIw, zg, zj, k, kw)
+
+
+_SHAPES: dict = {}
+_SHAPES_MAX = 256
+
+
+def shape(M, k: float = 1.0, kw: float = 1.0, Mmax: float | None = None) -> tuple[Shape, float]:
+    """(:class:`Shape`, peak |M|) of the diagram ``M`` (callable on xi or values at the quadrature points),
+    from a small cache keyed by the normalised diagram (a section search meets the same diagram for every
+    section)."""
+    fu, fp = _restraint(k, "k"), _restraint(kw, "k_w")
+    xi = _basis(fu, fp)[0]
+    m, mmax = _quad_m(M, xi, Mmax)
+    mn = m / mmax
+    key = (fu, fp, mn.tobytes())
+    sh = _SHAPES.get(key)
+    if sh is None:
+        if len(_SHAPES) >= _SHAPES_MAX:
+            _SHAPES.clear()
+        sh = _SHAPES[key] = Shape(fu, fp, mn)
+    return sh, mmax
+
+
+def _factors(solve, L, EIz, GIt, EIw, zg, zj, k, kw) -> Factors:
     kL = k * L
     ncr = math.pi ** 2 * EIz / kL ** 2
     B = (k / kw) ** 2 * EIw / EIz + kL ** 2 * GIt / (math.pi ** 2 * EIz)
-    m0 = mcr_energy(L, EIz, GIt, EIw, M, 0.0, 0.0, k, kw, Mmax)
+    m0 = solve(0.0, 0.0)
     C1 = m0 / (ncr * math.sqrt(B))
     C2 = C3 = 0.0
     mfull = m0
     if zg:
-        mg = mcr_energy(L, EIz, GIt, EIw, M, zg, 0.0, k, kw, Mmax) / (C1 * ncr)
+        mg = solve(zg, 0.0) / (C1 * ncr)
         C2 = (B - mg * mg) / (2 * mg) / zg
         mfull = mg * C1 * ncr
     if zj:
-        mj = mcr_energy(L, EIz, GIt, EIw, M, 0.0, zj, k, kw, Mmax) / (C1 * ncr)
+        mj = solve(0.0, zj) / (C1 * ncr)
         C3 = -(B - mj * mj) / (2 * mj) / zj
     if zg and zj:
-        mfull = mcr_energy(L, EIz, GIt, EIw, M, zg, zj, k, kw, Mmax)
+        mfull = solve(zg, zj)
     elif zj:
         mfull = mj * C1 * ncr
     return Factors(C1, C2, C3, mfull, f"Rayleigh-Ritz energy solution ({N_TERMS} terms) of the moment diagram")
+
+
+def equivalent_factors(L: float, EIz: float, GIt: float, EIw: float, M, zg: float = 0.0, zj: float = 0.0,
+                       k: float = 1.0, kw: float = 1.0, Mmax: float | None = None, fast: bool = True) -> Factors:
+    """C1 (and C2, C3 where z_g, z_j are not zero) reproducing the energy solution, see module docstring.
+
+    ``fast`` (default): through the cached :class:`Shape` of the diagram; ``fast=False``: one dense
+    :func:`mcr_energy` solve per factor (the reference path; the two agree to about 1e-12).
+    """
+    if fast:
+        sh, mmax = shape(M, k, kw, Mmax)
+        return sh.factors(L, EIz, GIt, EIw, zg, zj, k, kw)
+    return _factors(lambda g, j: mcr_energy(L, EIz, GIt, EIw, M, g, j, k, kw, Mmax), L, EIz, GIt, EIw, zg, zj,
+                    k, kw)
 
 
 def z_j(s) -> float:

@@ -26,7 +26,7 @@ from dataclasses import dataclass
 from ...errors import InputError
 from ._calc import Calc, condition, formula
 from ._common import STANDARD, Material, demand, length, material, section_props
-from ._result import ENResult
+from ._result import ENResult, rated
 from .factors import AnnexSet, annex_set
 
 __all__ = ["shear", "shear_si", "ShearCalc", "eta_for"]
@@ -190,8 +190,7 @@ def _result(r: ShearCalc, s, mat, ann, V, calc, location=None, combination="") -
     clause = (f"{STANDARD} 6.2.6; EN 1993-1-5:2006 5.2-5.3" if r.buckling else f"{STANDARD} 6.2.6")
     note = ("web slender in shear: V_b,Rd to EN 1993-1-5 section 5 governs"
             if r.buckling and r.V_Rd < r.V_pl_Rd else "")
-    res = ENResult(limit_state="Shear" + (" (shear buckling)" if r.buckling else ""), clause=clause,
-                   dim="force", capacity=r.V_Rd,
-                   nominal=r.V_Rd * (ann.gamma_M0 if r.V_Rd == r.V_pl_Rd else ann.gamma_M1), method="EN", steps=calc.take(), data=data,
-                   note=note, location=location, combination=combination)
-    return res.with_demand(V) if V is not None else res
+    return rated(V, limit_state="Shear" + (" (shear buckling)" if r.buckling else ""), clause=clause,
+                 dim="force", capacity=r.V_Rd,
+                 nominal=r.V_Rd * (ann.gamma_M0 if r.V_Rd == r.V_pl_Rd else ann.gamma_M1), method="EN",
+                 steps=calc.take(), data=data, note=note, location=location, combination=combination)

@@ -22,7 +22,7 @@ import math
 from ...errors import InputError
 from ._calc import Calc, condition, formula
 from ._common import demand, length, material, section_props
-from ._result import ENResult
+from ._result import ENResult, rated
 from .factors import annex_set
 
 __all__ = ["transverse", "transverse_si", "interaction_72"]
@@ -123,11 +123,10 @@ def transverse(section, steel, F_Ed=None, *, ss, load_type: str = "a", c=None, a
 
 
 def result(d, calc, F, location=None, combination="") -> ENResult:
-    res = ENResult(limit_state=f"Transverse force on the web (type {d['load_type']})",
-                   clause="EN 1993-1-5:2006 6.2-6.5", dim="force", capacity=d["F_Rd"],
-                   nominal=d["F_Rd"] * d["gamma_M1"], method="EN", steps=calc.take(), data=d,
-                   note="; ".join(d["notes"]), location=location, combination=combination)
-    return res.with_demand(F) if F is not None else res
+    return rated(F, limit_state=f"Transverse force on the web (type {d['load_type']})",
+                 clause="EN 1993-1-5:2006 6.2-6.5", dim="force", capacity=d["F_Rd"],
+                 nominal=d["F_Rd"] * d["gamma_M1"], method="EN", steps=calc.take(), data=d,
+                 note="; ".join(d["notes"]), location=location, combination=combination)
 
 
 F_72 = formula("eta_72", "eta_2 + 0.8*eta_1", "EN 1993-1-5:2006 7.2(1) Eq. (7.2)", "interaction")
@@ -140,7 +139,6 @@ def interaction_72(F_Ed: float, F_Rd: float, M_Ed: float, M_c_Rd: float, calc: C
     e2 = calc.given("eta_2", F_Ed / F_Rd, reference="EN 1993-1-5:2006 7.2(1): F_Ed/F_Rd")
     e1 = calc.given("eta_1", M_Ed / M_c_Rd, reference="EN 1993-1-5:2006 7.2(1) and 4.6: M_Ed/M_c,Rd")
     v = calc(F_72, eta_2=e2, eta_1=e1)
-    res = ENResult(limit_state="Transverse force and bending", clause="EN 1993-1-5:2006 7.2(1)", dim="dimensionless",
-                   capacity=1.4, method="EN", steps=calc.take(), data={"eta_1": e1, "eta_2": e2},
-                   location=location)
-    return res.with_demand(v)
+    return rated(v, limit_state="Transverse force and bending", clause="EN 1993-1-5:2006 7.2(1)",
+                 dim="dimensionless", capacity=1.4, method="EN", steps=calc.take(), data={"eta_1": e1, "eta_2": e2},
+                 location=location)
