@@ -1,0 +1,191 @@
+"""Adapter between the calc sheets and the design engines (:mod:`calckit.design.aisc360`,
+:mod:`calckit.design.en1993`): bracing points from the parameters, the member-level check call, and the
+conversion of design ``CheckResult`` records into calckit.render ``Check`` records for display.
+
+The sheets hold no design logic: strengths, Cb, chi_LT, classification and every clause come from the
+design modules; this module only passes the analysis results in and the records out.
+"""
+from __future__ import annotations
+
+from typing import Any, Sequence
+
+__all__ = ["brace_points", "to_render", "deflection_checks", "is_aisc", "member_checks", "girder_checks"]
+
+
+def is_aisc(standard: str) -> bool:
+    return str(standard).upper().startswith("AISC")
+
+
+def brace_points(nodes: Sequence[float], bracing: str, extra: Sequence[float] = (),
+                 kinds: Sequence[str] | None = None) -> list[float]:
+    """Positions (m) where the compression flange is braced laterally, sorted and unique.
+
+    ``nodes``: support positions (m); ``kinds``: their kinds ("free" ends are not braced).
+    ``bracing``: "continuous" (returns []: continuously braced), "supports", "midspan", "thirds" or
+    "quarters" (at the supports and at those points of each span). ``extra``: further positions (m).
+    """
+    if bracing == "continuous":
+        return []
+    div = {"supports": 1, "midspan": 2, "thirds": 3, "quarters": 4}[bracing]
+    kinds = list(kinds) if kinds is not None else ["pin"] * len(nodes)
+    pts = set()
+    for i, (a, b) in enumerate(zip(nodes[:-1], nodes[1:])):
+        for k in range(div + 1):
+            if (k == 0 and kinds[i] == "free") or (k == div and kinds[i + 1] == "free"):
+                continue
+            pts.add(round(a + (b - a) * k / div, 12))
+    pts.update(round(float(x), 12) for x in extra)
+    return sorted(pts)
+
+
+def to_render(cr) -> Any:
+    """A calckit.render Check for a design CheckResult (its steps shown, demand vs capacity)."""
+    from ..render import Check, check
+
+    if isinstance(cr, Check):
+        return cr
+    steps = []
+    for s in cr.steps or ():
+        if isinstance(s, Check):  # a record that already is a check: keep the steps that led to it
+            steps += [t for t in s.steps if not any(t is u for u in steps)]
+        elif hasattr(s, "kind"):
+            steps.append(s)
+    steps = tuple(steps)
+    comb = cr.combination or ""
+    show = comb and comb not in cr.limit_state and not comb.startswith("envelope")
+    name = cr.limit_state + (f" ({comb})" if show else "")
+    demand = 0.0 if cr.demand is None else abs(float(cr.demand))
+    note = cr.note
+    if cr.location is not None:
+        note = (note + "; " if note else "") + f"at x = {cr.location:.4g} m"
+    return check(name, (demand, cr.dim), (float(cr.capacity), cr.dim), reference=cr.clause, steps=steps,
+                 note=note)
+
+
+def deflection_checks(sheet) -> list:
+    """Span-by-span deflection checks of a beam sheet through the design engine's deflection check:
+    the largest |deflection| of each service envelope in each span against span / n (the parameters'
+    limits; a span ending at a free support is a cantilever: 2 x its length, common practice)."""
+    import numpy as np
+
+    from ..units import to_si
+
+    spans = [to_si(s, "span") for s in sheet.spans]
+    sup = sheet.supports
+    nodes = sheet.beam.layout.nodes
+    out = []
+    for label, env in sheet.service_env.items():
+        n = float(sheet.limits[label])
+        x = np.asarray(env.x)
+        for i, L in enumerate(spans):
+            m = (x >= nodes[i] - 1e-9) & (x <= nodes[i + 1] + 1e-9)
+            d = np.maximum(np.abs(env.defl_max[m]), np.abs(env.defl_min[m]))
+            cant = sup[i] == "free" or sup[i + 1] == "free"
+            if sheet.aisc:
+                from ..design.aisc360.deflection import deflection
+
+                r = deflection(f"{float(d.max())!r} m", f"{L!r} m", n, case=f"{label}, span {i + 1}",
+                               cantilever=cant)
+            else:
+                from ..design.en1993.deflection import deflection
+
+                Lr = 2.0 * L if cant else L
+                r = deflection(d, f"{Lr!r} m", kind="variable" if label == "live" else "total", limit=n,
+                               name=f"span {i + 1}")
+            out.append(r)
+    return out
+
+
+def _segments(L: float, braces: Sequence[float]) -> list[tuple[float, float]]:
+    pts = sorted({0.0, L, *[b for b in braces if 0.0 < b < L]})
+    return list(zip(pts[:-1], pts[1:]))
+
+
+def member_checks(sheet, a=None) -> list:
+    """Design CheckResults of a beam or girder sheet from the design engine of its standard.
+
+    EN 1993-1-1: :func:`calckit.design.en1993.check_member` with the strength envelope, the lateral
+    restraints and the stiffener spacing ``a``. AISC 360-22: its member check when present, else the
+    provisional set of :func:`_provisional`.
+    """
+    if not sheet.aisc:
+        from ..design.en1993 import check_member
+
+        restraints = "continuous" if not sheet.braces else sheet.braces
+        res = check_member(sheet.section, sheet.steel, analysis=sheet.env, restraints=restraints, a=a)
+        return list(res.checks)
+    cm = _aisc_member_check()
+    if cm is not None:
+        bracing = "continuous" if not sheet.braces else sheet.braces
+        res = cm(sheet.section, sheet.steel, sheet.env, method=sheet.method, bracing=bracing,
+                 stiffeners=None if a is None else f"{a!r} m")
+        return list(res.checks)
+    return _provisional(sheet)
+
+
+def _aisc_member_check():
+    try:
+        from ..design.aisc360 import check_member
+    except ImportError:
+        return None
+    return check_member
+
+
+def _provisional(sheet) -> list:
+    import numpy as np
+
+    env = sheet.env
+    x = np.asarray(env.x)
+    L = float(x[-1])
+    out = []
+    segs = _segments(L, sheet.braces) if sheet.braces else [(0.0, L)]
+    for a, b in segs:
+        m = (x >= a - 1e-9) & (x <= b + 1e-9)
+        Mmax, Mmin = float(np.max(env.M_max[m])), float(np.min(env.M_min[m]))
+        Mu = Mmax if Mmax >= -Mmin else Mmin
+        Lb = 0.0 if not sheet.braces else b - a
+        comp = "top" if Mu >= 0 else "bottom"
+        if sheet.aisc:
+            from ..design.aisc360.flexure import flexure
+
+            r = flexure(sheet.section, sheet.steel, Lb=Lb, Cb=1.0, method=sheet.method, compression=comp,
+                        Mu=f"{abs(Mu)!r} N*m")
+        else:
+            from ..design.en1993.bending import bending
+
+            r = bending(sheet.section, sheet.steel, M_Ed=f"{Mu!r} N*m")
+        from dataclasses import replace
+
+        out.append(replace(r, segment=(a, b), note=(r.note + "; " if r.note else "") +
+                           f"segment {a:.4g} m to {b:.4g} m, Cb = 1.0 (provisional)"))
+    V = float(max(np.max(np.abs(env.V_max)), np.max(np.abs(env.V_min))))
+    if sheet.aisc:
+        from ..design.aisc360.shear import shear
+
+        out.append(shear(sheet.section, sheet.steel, method=sheet.method, Vu=f"{V!r} N"))
+    else:
+        from ..design.en1993.shear import shear
+
+        out.append(shear(sheet.section, sheet.steel, V_Ed=f"{V!r} N"))
+    return out
+
+
+def girder_checks(sheet) -> list:
+    """Design CheckResults of a plate girder sheet: as :func:`member_checks` with the stiffener spacing,
+    plus (AISC, provisional path) shear with ``a`` and the transverse stiffener checks."""
+    import numpy as np
+
+    a = sheet.a
+    if not sheet.aisc or _aisc_member_check() is not None:
+        return member_checks(sheet, a=a)
+    out = [r for r in _provisional(sheet) if "shear" not in r.limit_state.lower()]
+    env = sheet.env
+    V = float(max(np.max(np.abs(env.V_max)), np.max(np.abs(env.V_min))))
+    from ..design.aisc360.shear import shear, transverse_stiffener
+
+    out.append(shear(sheet.section, sheet.steel, a=None if a is None else f"{a!r} m", method=sheet.method,
+                     Vu=f"{V!r} N"))
+    if a is not None:
+        out += list(transverse_stiffener(sheet.section, sheet.steel, f"{a!r} m", f"{V!r} N",
+                                         method=sheet.method))
+    return out
