@@ -1,8 +1,8 @@
 """Sliders and pickers for a calc opened in JupyterLab (ipywidgets; imported only inside slider cells).
 
 ``panel(calc)`` shows controls for the main parameters of a calc sheet (span, loads, section, bracing,
-grade, standard; plate sizes and stiffener spacing for a girder) and an output area that is redrawn on
-every change with the diagrams and the utilisation of every check. The controls start at the values of
+grade, standard; plate sizes and stiffener spacing for a girder) and a view (HTML with math) that is
+redrawn on every change with the diagrams and the utilisation of every check. The controls start at the values of
 the notebook's parameters; values are kept in the unit the parameter was written in. Nothing here
 computes: each change builds a new sheet with :mod:`calckit.sheets`, i.e. the same validation and the
 same engines as the batch.
@@ -48,7 +48,7 @@ def _as_text(s) -> str:
 def panel(calc, *, display_now: bool = True):
     """Build (and display) the interactive panel of a calc sheet; returns the ipywidgets container."""
     import ipywidgets as widgets
-    from IPython.display import HTML, display
+    from IPython.display import display
 
     from . import sheets
 
@@ -85,7 +85,9 @@ def panel(calc, *, display_now: bool = True):
                                                      description="standard")
         controls["method"] = widgets.ToggleButtons(options=["LRFD", "ASD"], value=p["method"], description="method")
     controls["units"] = widgets.ToggleButtons(options=["SI", "US"], value=p["units"], description="units")
-    out = widgets.Output()
+    # The results are shown as HTML with math (an HTMLMath widget, not an Output widget: an Output widget
+    # makes a headless client send state back to the kernel while a cell runs, which can lose replies).
+    view = widgets.HTMLMath(value="")
     builder: Callable = getattr(sheets, kind)
 
     def params_now() -> dict:
@@ -103,23 +105,27 @@ def panel(calc, *, display_now: bool = True):
         return q
 
     def redraw(*_):
-        out.clear_output(wait=True)
-        with out:
-            try:
-                sheet = builder(params_now())
-                for part in _live_parts(sheet):
-                    for b in sheet.get(part):
-                        display(b)
-            except Exception as exc:  # bad combination of slider values: say so, keep the panel
-                display(HTML(f"<p><strong>Cannot compute:</strong> {type(exc).__name__}: {exc}</p>"))
+        import html as _h
+
+        try:
+            sheet = builder(params_now())
+            view.value = "".join(_block_html(b) for part in _live_parts(sheet) for b in sheet.get(part))
+        except Exception as exc:  # bad combination of slider values: say so, keep the panel
+            view.value = f"<p><strong>Cannot compute:</strong> {_h.escape(type(exc).__name__)}: {_h.escape(str(exc))}</p>"
 
     for w in controls.values():
         w.observe(redraw, names="value")
-    box = widgets.VBox([widgets.HBox([widgets.VBox(list(controls.values()))]), out])
+    box = widgets.VBox([widgets.HBox([widgets.VBox(list(controls.values()))]), view])
     redraw()
     if display_now:
         display(box)
     return box
+
+
+def _block_html(b) -> str:
+    if hasattr(b, "_repr_html_"):
+        return b._repr_html_()
+    return f"<pre>{b!r}</pre>"
 
 
 def _live_parts(sheet) -> list[str]:

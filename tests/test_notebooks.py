@@ -88,6 +88,13 @@ def test_interactive_panel_redraws_on_change():
     controls = box.children[0].children[0].children
     span = controls[0]
     assert span.description == "span 1" and span.unit == "m"
-    span.value = span.value * 1.2  # triggers a rebuild (no kernel here: outputs are not captured)
+    view = box.children[1]
+    before = view.value
+    assert "Summary of checks" in before and "<svg" in before
+    span.value = span.value * 1.2  # triggers a rebuild
+    assert view.value != before and "Summary of checks" in view.value
+    section = next(c for c in controls if c.description == "section")
+    section.value = "W8X10"  # far too light: the view says NOT OK, it does not break
+    assert "NOT OK" in view.value
     assert split_quantity("0.75 kip/ft") == (0.75, "kip/ft")
     assert split_quantity("0") == (0.0, "")
