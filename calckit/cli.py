@@ -1,5 +1,6 @@
-"""Command line: ``calckit run``, ``calckit demo``, ``calckit verify``, ``calckit check`` (also
-``python -m calckit ...``). A thin layer over :func:`calckit.batch.run` and :func:`calckit.record.verify`.
+"""Command line: ``calckit run``, ``calckit demo``, ``calckit verify``, ``calckit check``, ``calckit pick``
+(also ``python -m calckit ...``). A thin layer over :func:`calckit.batch.run`, :func:`calckit.record.verify`
+and :func:`calckit.pick`.
 
 Exit codes
 ----------
@@ -9,6 +10,9 @@ run / demo / check:
     1  some member fails a design check
     2  some calc could not run: bad input (file and parameter named) or an error while executing;
        the other members still run
+pick:
+    0  a section passes (the lightest is printed), 1 no catalog section passes (the closest are listed),
+    2  bad input
 verify:
     0  same: every number of the results payload agrees (relative tolerance 1e-9) and every hash matches
     1  a difference (each one is listed)
@@ -42,6 +46,7 @@ def build_parser() -> argparse.ArgumentParser:
                "  run, demo, check: 0 all pass (demo: every member has its expected outcome),\n"
                "                    1 some member fails a check,\n"
                "                    2 some calc could not run (bad input or an error)\n"
+               "  pick:             0 a section passes, 1 none passes, 2 bad input\n"
                "  verify:           0 same, 1 differences, 2 could not verify\n\n"
                "A design aid only: results must be reviewed, and the calculation sealed, by a licensed or\n"
                "chartered engineer; local codes, national annexes and project specifications govern.")
@@ -69,6 +74,9 @@ def build_parser() -> argparse.ArgumentParser:
     v.add_argument("records", nargs="+", help="archived .ipynb files")
     v.add_argument("--root", default=None, help="archive root holding manifest.jsonl "
                                                 "(default: three levels above the record)")
+    k = sub.add_parser("pick", add_help=False,
+                       help="lightest catalog section passing every check (calckit pick FILE --help)")
+    k.add_argument("rest", nargs=argparse.REMAINDER)
     return p
 
 
@@ -141,6 +149,10 @@ def main(argv=None) -> int:
         return _run(args, [_repo_dir("parameters")], demo=True)
     if args.command == "check":
         return _check(args.paths)
+    if args.command == "pick":
+        from .pick.report import pick_main
+
+        return pick_main(args.rest)
     return _verify(args)
 
 

@@ -189,3 +189,11 @@ def convert(si_value, dim: str, unit: str) -> float:
     """SI float -> float in ``unit`` (e.g. convert(1.0, 'moment', 'kip*ft'))."""
     reg = _registry()
     return reg.Quantity(si_value, _si_unit(dim)).m_as(unit)
+
+
+def fmt(si_value: float, dim: str, system: str = "SI", sig: int = 4) -> str:
+    """A value as text in the display unit of ``system``: fmt(4.267, "span", "US") -> '14 ft'."""
+    unit = display_unit(dim, system)
+    v = convert(si_value, dim, unit) if unit else si_value
+    shown = unit.replace("**2", "²").replace("**3", "³").replace("**4", "⁴").replace("*", "·")
+    return f"{v:.{sig}g} {shown}".rstrip()

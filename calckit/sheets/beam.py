@@ -9,6 +9,7 @@ combinations of EN 1990).
 from __future__ import annotations
 
 from .common import CalcSheet
+from ..units import fmt
 from .design import brace_points, is_aisc, to_render
 
 __all__ = ["BeamSheet", "build_beam", "CASE_TEXT"]
@@ -137,24 +138,69 @@ class BeamSheet(CalcSheet):
         recs = []
         for i, s in enumerate(env.spans):
             recs.append(given(f"M_max_{i + 1}", s.M_max.value, "moment", reference=s.M_max.combination,
-                              label=f"span {i + 1}: largest sagging moment at x = {s.M_max.x:.4g} m"))
+                              label=f"span {i + 1}: largest sagging moment at x = {fmt(s.M_max.x, 'span', self.system)}"))
             if s.M_min.value < -1e-9 * max(abs(s.M_max.value), 1.0):
                 recs.append(given(f"M_min_{i + 1}", -s.M_min.value, "moment", reference=s.M_min.combination,
-                                  label=f"span {i + 1}: largest hogging moment (magnitude) at x = {s.M_min.x:.4g} m"))
+                                  label=f"span {i + 1}: largest hogging moment (magnitude) at x = {fmt(s.M_min.x, 'span', self.system)}"))
             Va = s.V_abs
             recs.append(given(f"V_max_{i + 1}", abs(Va.value), "force", reference=Va.combination,
-                              label=f"span {i + 1}: largest shear at x = {Va.x:.4g} m"))
+                              label=f"span {i + 1}: largest shear at x = {fmt(Va.x, 'span', self.system)}"))
         for j, x in enumerate(env.nodes):
             recs.append(given(f"R_{j + 1}", float(env.R_max[j]), "force",
                               reference=env.combinations[int(env.R_max_by[j])],
-                              label=f"support {j + 1} at x = {x:.4g} m: largest reaction (upward)"))
+                              label=f"support {j + 1} at x = {fmt(x, 'span', self.system)}: largest reaction (upward)"))
         from .svgplot import SvgFigure, beam_svg
 
+        closed = self._closed_form()
         return [Section("Analysis: envelope of the strength combinations", recs, number="2",
                         intro=env.method, system=self.system),
+                *closed,
                 SvgFigure(beam_svg(self.beam, env, self.system),
                           caption="Loads by case; shear, moment and deflection envelopes of the strength "
                                   "combinations (deflection at factored loads, for its shape only)")]
+
+    def _closed_form(self) -> list:
+        """Where the member is a tabulated beam case (one span, full uniform loads or one point load), the
+        closed-form formulas of :mod:`calckit.analysis.formulas` for the governing strength combination,
+        formulas beside numbers; they must agree with the exact solution shown above."""
+        from ..analysis.formulas import detect_standard_case
+        from ..render import Formula, Section
+
+        sp = self.env.spans[0] if len(self.env.spans) == 1 else None
+        if sp is None:
+            return []
+        comb = next((c for c in self.strength if c.name == sp.M_max.combination), None)
+        if comb is None:
+            return []
+        found = [(case, f, detect_standard_case(self.beam, case)) for case, f in comb.factors.items()
+                 if case in self.cases and f]
+        if not found or any(d is None for _, _, d in found) or len({d.case.key for _, _, d in found}) != 1:
+            return []
+        sc = found[0][2].case
+        load = "w" if "w" in sc.inputs else "P"
+        if load == "P" and len({round(d.values.get("a", 0.0), 9) for _, _, d in found}) != 1:
+            return []
+        vals = dict(found[0][2].values)
+        vals[load] = sum(f * d.values[load] for _, f, d in found)
+        dims = {"w": "line_load", "P": "force", "L": "span", "a": "span", "b": "span", "E": "stress",
+                "I": "inertia", "R_1": "force", "R_2": "force", "V_max": "force", "M_max": "moment",
+                "M_1": "moment", "M_2": "moment"}
+        steps = []
+        for key in ("R_1", "R_2", "V_max", "M_1", "M_2", "M_max"):
+            eq = sc.equations.get(key)
+            if eq is None:
+                continue
+            names = sorted(str(v) for v in eq.rhs.free_symbols)
+            F = Formula(key, str(eq.rhs), dims={k: dims[k] for k in [key, *names]}, ref=sc.reference,
+                        label=f"{sc.title}: {key.replace('_', ' ')} {sc.where.get(key, '')}".rstrip())
+            steps.append(F.step(**{n: vals[n] for n in names}))
+        intro = (f"The member is a tabulated case ({sc.title}); under {comb.name} the load is "
+                 f"{load} = {self._fmt_load(vals[load], load)}. The closed-form values below must equal the "
+                 f"exact solution above (a check on the analysis).")
+        return [Section("Closed-form check of the analysis", steps, number="2a", intro=intro, system=self.system)]
+
+    def _fmt_load(self, v: float, load: str) -> str:
+        return fmt(v, "line_load" if load == "w" else "force", self.system)
 
     def _section(self):
         from ..render import Section, given
@@ -181,8 +227,8 @@ class BeamSheet(CalcSheet):
         Mg = M if abs(M.value) >= abs(Mn.value) else Mn
         V = max((s.V_abs for s in self.env.spans), key=lambda e: abs(e.value))
         prof = stress_profile(self.section, Mg.value, abs(V.value))
-        intro = (f"Largest moment {Mg.combination} at x = {Mg.x:.4g} m and largest shear {V.combination} at "
-                 f"x = {V.x:.4g} m, shown on one profile (each stress is linear in its own action).")
+        intro = (f"Largest moment {Mg.combination} at x = {fmt(Mg.x, 'span', self.system)} and largest shear {V.combination} at "
+                 f"x = {fmt(V.x, 'span', self.system)}, shown on one profile (each stress is linear in its own action).")
         from .svgplot import SvgFigure, stress_svg
 
         return [Section("Stress through the depth", list(prof.steps()), number="4", intro=intro,
@@ -197,13 +243,13 @@ class BeamSheet(CalcSheet):
         return self._design
 
     def strength_checks(self) -> list:
-        return [to_render(c) for c in self.design_results()]
+        return [to_render(c, self.system) for c in self.design_results()]
 
     def deflection_checks(self) -> list:
         if "_defl" not in self.__dict__:
             from .design import deflection_checks
 
-            self._defl = [to_render(r) for r in deflection_checks(self)]
+            self._defl = [to_render(r, self.system) for r in deflection_checks(self)]
         return self._defl
 
     def _checks(self):

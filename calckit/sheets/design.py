@@ -38,8 +38,9 @@ def brace_points(nodes: Sequence[float], bracing: str, extra: Sequence[float] = 
     return sorted(pts)
 
 
-def to_render(cr) -> Any:
-    """A calckit.render Check for a design CheckResult (its steps shown, demand vs capacity)."""
+def to_render(cr, system: str = "SI") -> Any:
+    """A calckit.render Check for a design CheckResult (its steps shown, demand vs capacity); positions
+    in the notes are given in the display units of ``system``."""
     from ..render import Check, check
 
     if isinstance(cr, Check):
@@ -57,7 +58,9 @@ def to_render(cr) -> Any:
     demand = 0.0 if cr.demand is None else abs(float(cr.demand))
     note = cr.note
     if cr.location is not None:
-        note = (note + "; " if note else "") + f"at x = {cr.location:.4g} m"
+        from ..units import fmt
+
+        note = (note + "; " if note else "") + f"at x = {fmt(cr.location, 'span', system)}"
     return check(name, (demand, cr.dim), (float(cr.capacity), cr.dim), reference=cr.clause, steps=steps,
                  note=note)
 
@@ -101,12 +104,25 @@ def _segments(L: float, braces: Sequence[float]) -> list[tuple[float, float]]:
     return list(zip(pts[:-1], pts[1:]))
 
 
+def diagrams(sheet) -> dict:
+    """The real moment diagram of every strength combination and pattern arrangement
+    (:func:`calckit.analysis.arrangements`): Cb (AISC 360-22 F1-1) and C1 (EN 1993-1-1) need the shape of
+    one loading's diagram, which an envelope is not. Cached on the sheet."""
+    d = getattr(sheet, "_diagrams", None)
+    if d is None:
+        from ..analysis import arrangements
+
+        d = arrangements(sheet.solution, sheet.strength)
+        sheet._diagrams = d
+    return d
+
+
 def member_checks(sheet, a=None) -> list:
     """Design CheckResults of a beam or girder sheet from the design engine of its standard.
 
     EN 1993-1-1: :func:`calckit.design.en1993.check_member` with the strength envelope, the lateral
-    restraints and the stiffener spacing ``a``. AISC 360-22: its member check when present, else the
-    provisional set of :func:`_provisional`.
+    restraints and the stiffener spacing ``a``. AISC 360-22: its member check on the real diagram of every
+    combination and arrangement (:func:`diagrams`), else the provisional set of :func:`_provisional`.
     """
     if not sheet.aisc:
         from ..design.en1993 import check_member
@@ -117,7 +133,7 @@ def member_checks(sheet, a=None) -> list:
     cm = _aisc_member_check()
     if cm is not None:
         bracing = "continuous" if not sheet.braces else sheet.braces
-        res = cm(sheet.section, sheet.steel, sheet.env, method=sheet.method, bracing=bracing,
+        res = cm(sheet.section, sheet.steel, diagrams(sheet), method=sheet.method, bracing=bracing,
                  stiffeners=None if a is None else f"{a!r} m")
         return list(res.checks)
     return _provisional(sheet)

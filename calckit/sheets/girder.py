@@ -9,6 +9,7 @@ from __future__ import annotations
 
 import math
 
+from ..units import fmt
 from .beam import BeamSheet
 from .design import to_render
 
@@ -97,14 +98,14 @@ class GirderSheet(BeamSheet):
     def _bending(self):
         from ..render import Section
 
-        recs = [to_render(r) for r in self.design_results() if not self._is_shear(r)]
+        recs = [to_render(r, self.system) for r in self.design_results() if not self._is_shear(r)]
         return [Section("Bending", recs, number="5", system=self.system)]
 
     def _shear(self):
         from ..render import Section
 
-        recs = [to_render(r) for r in self.design_results() if self._is_shear(r)]
-        intro = (f"Intermediate transverse stiffeners at a = {self.a:.4g} m." if self.a else
+        recs = [to_render(r, self.system) for r in self.design_results() if self._is_shear(r)]
+        intro = (f"Intermediate transverse stiffeners at a = {fmt(self.a, 'span', self.system)}." if self.a else
                  "No intermediate transverse stiffeners (stiffeners at the supports only).")
         return [Section("Shear, with the transverse stiffener spacing", recs, number="6", intro=intro,
                         system=self.system)]
@@ -128,7 +129,7 @@ class GirderSheet(BeamSheet):
         recs = []
         for j in wd.junctions:
             if j.check is not None:
-                recs.append(to_render(j.check))
+                recs.append(to_render(j.check, self.system))
         size = ("fillet leg w" if self.aisc else f"throat a = leg / sqrt(2) of the {self.p['weld']} leg")
         intro = f"Two fillet welds per junction ({size}); shear flow q = V Q / I_x along the span. " + \
             " ".join(wd.notes)
@@ -143,5 +144,5 @@ class GirderSheet(BeamSheet):
 
     def strength_checks(self) -> list:
         wd = self.weld_design()
-        return [to_render(c) for c in self.design_results()] + [to_render(j.check) for j in wd.junctions
+        return [to_render(c, self.system) for c in self.design_results()] + [to_render(j.check, self.system) for j in wd.junctions
                                                                  if j.check is not None]
