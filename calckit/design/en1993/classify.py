@@ -25,8 +25,9 @@ from ._common import Material, demand, material, section_props
 __all__ = ["Classification", "classify", "classify_si", "web_geometry"]
 
 _R = "EN 1993-1-1:2005 Table 5.2"
-F_EPS = formula("epsilon", "sqrt(235e6/f_y)", "EN 1993-1-1:2005 Table 5.2", "material factor",
-                dims={"f_y": "stress"}, check_units=False)
+F_EPS = formula("epsilon", "sqrt(f_y0/f_y)", "EN 1993-1-1:2005 Table 5.2", "material factor (f_y0 = 235 MPa)",
+                dims={"f_y": "stress", "f_y0": "stress"})
+FY0 = 235e6  #: the reference yield strength of epsilon, Pa (EN 1993-1-1 Table 5.2)
 F_CF_ROLLED = formula("c_f", "(b - t_w - 2*r)/2", _R + " sheet 2", "flange outstand, rolled",
                       dims={"c_f": "length", "b": "length", "t_w": "length", "r": "length"})
 F_CF_WELDED = formula("c_f", "(b - t_w - 2*s_w)/2", _R + " sheet 2", "flange outstand, welded (s_w = a sqrt2)",
@@ -119,7 +120,7 @@ def classify_si(s, mat: Material, *, sagging: bool = True, N_Ed: float = 0.0, M_
     calc = calc or Calc(False)
     n0 = len(calc.records)
     fy = mat.fy
-    eps = calc(F_EPS, f_y=fy)
+    eps = calc(F_EPS, f_y0=FY0, f_y=fy)
     top = bool(sagging)
     b = s.bf_top if top else s.bf_bot
     tf = s.tf_top if top else s.tf_bot

@@ -41,8 +41,8 @@ F_AV_WELDED = formula("A_v", "eta*h_w*t_w", _R1 + " 6.2.6(3)(d)", "shear area, w
                       dims={"A_v": "area", "h_w": "length", "t_w": "length"})
 F_VPL = formula("V_pl_Rd", "A_v*(f_y/sqrt(3))/gamma_M0", _R1 + " 6.2.6(2) Eq. (6.18)", "plastic shear resistance",
                 dims={"V_pl_Rd": "force", "A_v": "area", "f_y": "stress"})
-F_EPSW = formula("epsilon_w", "sqrt(235e6/f_yw)", _R5 + " 5.1(2)", "material factor of the web",
-                 dims={"f_yw": "stress"}, check_units=False)
+F_EPSW = formula("epsilon_w", "sqrt(f_y0/f_yw)", _R5 + " 5.1(2)", "material factor of the web (f_y0 = 235 MPa)",
+                 dims={"f_yw": "stress", "f_y0": "stress"})
 F_KTAU_LONG = formula("k_tau", "5.34 + 4*(h_w/a)**2", _R5 + " Annex A.3 Eq. (A.5)", "a/h_w >= 1",
                       dims={"h_w": "length", "a": "length"})
 F_KTAU_SHORT = formula("k_tau", "4 + 5.34*(h_w/a)**2", _R5 + " Annex A.3 Eq. (A.5)", "a/h_w < 1",
@@ -119,7 +119,7 @@ def shear_si(s, mat: Material, annex: AnnexSet, *, a: float | None = None, end_p
         Av = calc(F_AV_WELDED, eta=eta, h_w=s.hw, t_w=s.tw)
         fyv = fyw
     Vpl = calc(F_VPL, A_v=Av, f_y=fyv, gamma_M0=g0)
-    epsw = calc(F_EPSW, f_yw=fyw)
+    epsw = calc(F_EPSW, f_y0=235e6, f_yw=fyw)
     hw, tw = s.hw, s.tw
     kt = None
     if a is not None:
