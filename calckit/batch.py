@@ -475,6 +475,10 @@ def _process(pf: ParamFile, clean: dict, out: Path, date: str, batch_id: str, ti
             row.governing = run.payload.get("governing") or ""
             r = run.payload.get("max_ratio")
             row.ratio = float(r) if isinstance(r, (int, float, str)) and r is not None else None
+            if str(row.section).strip().lower() == "lightest":  # picked in the calc: name the choice
+                given = ((run.payload.get("header") or {}).get("Inputs") or {}).get("section", "")
+                if "chosen" in str(given):
+                    row.section = str(given).split(":", 1)[1].split(" chosen")[0].strip()
         stem = f"{pf.calc}-{rev}"
         nb_path, html_path = folder / f"{stem}.ipynb", folder / f"{stem}.html"
         outputs: dict[str, Any] = {}

@@ -228,7 +228,8 @@ def _section_check(name: str, key: str) -> list[tuple[str, str]]:
 def _beam_check(v: Mapping[str, Any]) -> list[tuple[str, str]]:
     from .units import to_si
 
-    out: list[tuple[str, str]] = _grade_check(v) + _section_check(v["section"], "section")
+    lightest = isinstance(v["section"], str) and v["section"].strip().lower() == "lightest"
+    out: list[tuple[str, str]] = _grade_check(v) + ([] if lightest else _section_check(v["section"], "section"))
     spans, sup = v.get("spans"), v.get("supports")
     if isinstance(spans, list) and isinstance(sup, list) and len(sup) != len(spans) + 1:
         out.append(("supports", f"got {len(sup)} supports for {len(spans)} span(s); expected "
@@ -294,7 +295,8 @@ STEEL_BEAM = CalcSpec(
     "steel_beam",
     "Steel beam: loads, analysis, section, checks, deflection",
     COMMON + _DESIGN + (
-        Param("section", "text", "W18X50", "rolled section from the catalog, e.g. 'W18X50', 'IPE 300'",
+        Param("section", "text", "W18X50", "rolled section from the catalog, e.g. 'W18X50', 'IPE 300', or "
+              "'lightest' (the lightest passing section is picked and recorded)",
               required=True),
         Param("spans", "quantities", ["9.0 m"], "span lengths, left to right (more than one: continuous)",
               dim="span", lo="0.3 m", hi="60 m", min_items=1, max_items=8, required=True),

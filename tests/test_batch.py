@@ -82,9 +82,12 @@ def test_demo_batch_exit_code_and_summary(demo):
             assert (float(r["ratio"]) > 1.0) == (expect == "fail")
     fail = [r for r in rows if r["status"] == "fail"]
     assert [r["member"] for r in fail] == ["B-106"]
+    picked = [r for r in rows if r["member"] == "B-107"]  # section = "lightest": the choice is named
+    assert picked and picked[0]["section"].startswith("IPE")
     for m in exp:  # the printed table names every member
         assert m in p.stdout
-    assert "[10/10]" in p.stderr  # progress lines
+    n = len(exp)
+    assert f"[{n:2d}/{n}]" in p.stderr  # progress lines
 
 
 def test_every_record_archived_with_offline_html(demo):

@@ -68,9 +68,12 @@ class BeamSheet(CalcSheet):
 
     # -- model ------------------------------------------------------------------------------------
     def make_section(self):
-        from .. import section as catalog_section
+        """The catalog section named in the parameters, or for ``section = "lightest"`` the lightest
+        passing one found by :func:`calckit.pick` (the choice and the candidates are recorded in part 3)."""
+        from ..pick.report import select_section
 
-        return catalog_section(self.p["section"])
+        self.selection = select_section(self.p)
+        return self.selection.section
 
     def model_params(self) -> dict:
         return self.p
@@ -159,6 +162,18 @@ class BeamSheet(CalcSheet):
                           caption="Loads by case; shear, moment and deflection envelopes of the strength "
                                   "combinations (deflection at factored loads, for its shape only)")]
 
+    def header(self):
+        h = super().header()
+        sel = getattr(self, "selection", None)
+        if sel is not None and sel.picked:
+            from dataclasses import replace
+
+            inputs = dict(h.inputs)
+            text, meaning = inputs.get("section", ("lightest", ""))
+            inputs["section"] = (f"{text}: {sel.name} chosen (part 3)", meaning)
+            h = replace(h, inputs=inputs)
+        return h
+
     def _closed_form(self) -> list:
         """Where the member is a tabulated beam case (one span, full uniform loads or one point load), the
         closed-form formulas of :mod:`calckit.analysis.formulas` for the governing strength combination,
@@ -216,7 +231,17 @@ class BeamSheet(CalcSheet):
         recs += [given("F_y" if self.aisc else "f_y", st.si.fy, "stress", reference=st.source or st.name,
                        label=f"{st.name}, thinnest band"),
                  given("E", st.si.E, "stress", reference=st.source or st.name)]
-        return [Section(f"Section {self.section.name}, steel {st.name}", recs, number="3", system=self.system)]
+        blocks = [Section(f"Section {self.section.name}, steel {st.name}", recs, number="3", system=self.system)]
+        sel = getattr(self, "selection", None)
+        if sel is not None and sel.picked:
+            from ..pick.report import candidates_table
+            from ..render import Table, Text
+
+            cols, rows = candidates_table(sel.result, system=self.system)
+            blocks = [Text(sel.record), Table(list(cols), [list(r) for r in rows],
+                                              caption="Lightest passing candidates (each with its own self-weight)"),
+                      *blocks]
+        return blocks
 
     def _stress(self):
         from ..design.stress import stress_profile
