@@ -129,3 +129,13 @@ def test_shear_centre(fe_results, name):
     depth = sec.si.d / MM
     assert abs(sec.si.y_s / MM - (ys - y0)) <= TOL_SC * depth, f"{name} y_s"
     assert abs(sec.si.x_s / MM - (xs - x0)) <= TOL_SC * depth, f"{name} x_s"
+
+
+def test_cover_plated_torsion_constant_is_conservative(fe_results):
+    # BuiltUp.J is the sum of the parts' J (each part twisting on its own). Welded cover plates make the
+    # stacked flange act as one thick plate, so the FE value is far higher (measured: calckit 0.71e6 mm4,
+    # FE 2.22e6 mm4). The 3 % goal is NOT met for this shape; the value is on the safe side for
+    # lateral-torsional buckling, which this test pins so that it cannot become unconservative.
+    name = "IPE 330 with 200x15 cover plates"
+    ours = CASES[name][0].si.J / MM ** 4
+    assert ours <= fe_results[name]["J"]
