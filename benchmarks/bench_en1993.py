@@ -106,6 +106,49 @@ def main() -> None:
         line("numeric check_member with a 2 m overhang (energy model of overhang + back span), per section",
              timed(overhang, 3, 7), n)
 
+        # the real diagram of every load arrangement (calckit.analysis.arrangements): 2 x 6 m, G + Q patterned
+        from calckit.analysis import Beam, arrangements
+        from calckit.analysis.combinations import combinations
+
+        b = Beam(["6 m", "6 m"], ["pin", "roller", "roller"], EI="40000 kN*m**2")
+        b.udl("8 kN/m", "G").udl("20 kN/m", "Q").udl("1 N/m", "SW")
+        sol = b.solve()
+        combos = combinations("EN 1990", ["G", "Q"], "strength", category="B")
+        arr = arrangements(sol, combos)
+        env = sol.envelope(combos)
+        for rs, what in (([0, 6, 12], "restraints at supports"), ([0, 3, 6, 9, 12], "restraints at supports and midspans")):
+            Da = en1993.demands(analysis=arr, restraints=rs)
+            De = en1993.demands(analysis=env, restraints=rs)
+            nseg = len(rs) - 1
+
+            def per_diagram(D=Da):
+                for s in sections:
+                    en1993.check_member(s, "S355", demands=D, steps=False)
+
+            def envelope_path(D=De):
+                for s in sections:
+                    en1993.check_member(s, "S355", demands=D, steps=False)
+
+            line(f"2 x 6 m, {len(arr)} diagrams, {nseg} segments ({what}): demands= per diagram, per section",
+                 timed(per_diagram, 3, 7), n)
+            line("  same member, envelope input (C1 from an envelope curve, approximate), per section",
+                 timed(envelope_path, 3, 7), n)
+        line(f"  en1993.demands(analysis=<{len(arr)} BeamResults>) itself, per member",
+             timed(lambda: en1993.demands(analysis=arr, restraints=[0, 6, 12]), 5, 7))
+        # the section search's path: loads-only diagrams + unit self-weight, with_self_weight(w) per candidate
+        f = {nm: (1.35 if "1.35G" in nm else 1.0) for nm in arr}
+        x_, M_, V_, _, _ = en1993.from_analysis(arr)
+        _, MU, VU, _, _ = en1993.from_analysis(sol["SW"])
+        Dsw = en1993.demands(x=x_, M=M_, V=V_, self_weight=(MU, VU, f), restraints=[0, 6, 12])
+        masses = [s.si.mass * 9.80665 for s in sections]
+
+        def search_path():
+            for s, w_ in zip(sections, masses):
+                en1993.check_member(s, "S355", demands=Dsw.with_self_weight(w_), steps=False)
+
+        line(f"  section search path: with_self_weight(w) + check_member, {len(arr)} diagrams, per section",
+             timed(search_path, 3, 7), n)
+
     ann = annex_set("recommended")
     props = [(s.si, material(s.si, "S355")) for s in sections]
 

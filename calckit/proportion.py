@@ -411,14 +411,15 @@ def _screen(m, resp, st, hw, tw, bf, tf, a, stiff, mass_g, mass_st) -> GirderCan
             sa, sb = seg
             q = [abs(float(np.interp(sa + f * (sb - sa), resp.x, M))) for f in (0.25, 0.5, 0.75)]
             Cb = aisc360.cb(peak, *q)
-            free = any(isinstance(s, str) and s == "free" for s in m.supports)
+            free = _free_segment(m, seg)  # Cb = 1 for an unbraced free end only (AISC 360-22 F1 User Note)
             r = aisc360.flexure(pg, st, Lb=quantity(sb - sa, "span"), Cb=1.0 if free else Cb, method=m.method,
                                 Mu=Mq, compression="top" if M[j] > 0 else "bottom", steps=False)
     else:
         from .design import en1993
 
         r = en1993.bending(pg, st, M_Ed=quantity(float(M[j]), "moment"), annex=m.annex, steps=False)
-        if seg is not None and r.ratio <= 1.0:
+        if seg is not None and r.ratio <= 1.0 and not _free_segment(m, seg):  # (forks: a cantilever's M_cr is
+            # not bounded by the fork model, so its LTB is left to the full check)
             sa, sb = seg
             inside = (resp.x > sa) & (resp.x < sb)
             xs = np.concatenate(([sa], resp.x[inside], [sb]))
@@ -429,6 +430,13 @@ def _screen(m, resp, st, hw, tw, bf, tf, a, stiff, mass_g, mass_st) -> GirderCan
         return None
     return GirderCandidate(hw, tw, bf, tf, d, a, stiff, 0.0, mass_g, mass_st, mass_g + mass_st, False,
                            float(r.ratio), r.limit_state, r.clause, ((r.limit_state + " (screening)", float(r.ratio)),))
+
+
+def _free_segment(m, seg) -> bool:
+    """True when the unbraced segment ends at a free member end (a cantilever or an overhang)."""
+    tol = 1e-9 * m.L
+    free = [isinstance(s, str) and s == "free" for s in m.supports]
+    return (seg[0] <= tol and free[0]) or (seg[1] >= m.L - tol and free[-1])
 
 
 def _full_check(m, resp, check, st, hw, tw, bf, tf, a, stiff, mass_g, mass_st) -> GirderCandidate:

@@ -412,6 +412,37 @@ def _defl_ratio(spec, sol, live, total, nodes, check):
     return worst
 
 
+def _restraints(spec, nodes):
+    """Lateral-torsional restraint positions: the supports that are not free, and midspans if braced there."""
+    pts = [x for x, s in zip(nodes, spec["supports"]) if s != "free"]
+    if spec.get("bracing") == "midspan":
+        pts += [0.5 * (a + b) for a, b in zip(nodes[:-1], nodes[1:])]
+    return sorted(set(round(p, 9) for p in pts))
+
+
+def _en_free_end(en1993, sec, st, r, a, b, pts):
+    """LTB ratio of the free-ended segment [a, b] under the diagram r: EN 1993-1-1 6.3.2 with M_cr of
+    ``en1993.ltb(..., cantilever=True)``, built-in root without another restraint, else solved with the
+    segment behind the root (``backspan``), as calckit's member check models them (its own rules)."""
+    root, tip = (b, a) if a == 0 and b in pts else (a, b)
+    sgn = 1.0 if tip > root else -1.0
+    Lo = abs(tip - root)
+    s_ = np.linspace(0.0, Lo, 201)
+    Mo = r.M_si(root + sgn * s_)
+    peak = float(np.max(np.abs(Mo)))
+    if peak == 0:
+        return 0.0
+    behind = [p for p in pts if (p - root) * sgn < -1e-9]
+    kw = {}
+    if behind:
+        far = max(behind) if sgn > 0 else min(behind)
+        Lb = abs(root - far)
+        t = np.linspace(0.0, Lb, 201)
+        kw["backspan"] = (f"{Lb} m", (t, r.M_si(far + sgn * t)))
+    return en1993.ltb(sec, st, L=f"{Lo} m", moment_diagram=(s_, Mo), cantilever=True, M_Ed=f"{peak} N*m",
+                      **kw).ratio
+
+
 class _Fails(Exception):
     """A check of the brute force failed: go to the next section."""
 
@@ -471,9 +502,9 @@ def brute_en(spec, families=("IPE", "HEA", "HEB")):
 
     st = steel(spec["grade"])
 
-    def defl(delta, span, n, kind, cant):
+    def defl(delta, span, n, kind, cant):  # a cantilever against 2 x its length / n (calckit.pick's documented rule)
         k = "variable" if kind == "live" else "total"
-        return en1993.deflection(f"{delta} m", f"{span} m", kind=k, limit=n).ratio
+        return en1993.deflection(f"{delta} m", f"{2 * span if cant else span} m", kind=k, limit=n).ratio
 
     for sec in catalog(list(families)):
         b, nodes = _beam(spec, sec, st)
@@ -493,7 +524,11 @@ def brute_en(spec, families=("IPE", "HEA", "HEB")):
                     if sign * M[j] > 0:
                         Vj = max(VL[j], VR[j])
                         worst = _keep(worst, en1993.bending(sec, st, M_Ed=f"{M[j]} N*m", V_Ed=f"{Vj} N").ratio)
-                for a, bb, _ in (segs or []):
+                pts = _restraints(spec, nodes)
+                for a, bb, free in (segs or []):
+                    if free:  # cantilever or overhang: its own diagram from the root, with the back segment
+                        worst = _keep(worst, _en_free_end(en1993, sec, st, r, a, bb, pts))
+                        continue
                     xx = np.linspace(a, bb, 201)
                     Mx = r.M_si(xx)
                     peak = float(np.max(np.abs(Mx)))
@@ -526,6 +561,10 @@ EN_MEMBERS = [
          bracing="midspan", standard="EN 1993-1-1", grade="S355", live=300, total=250),
     dict(spans=["8 m"], supports=["fixed", "roller"], udl={"D": "12 kN/m", "L": "10 kN/m"}, bracing="supports",
          standard="EN 1993-1-1", grade="S235", live=350, total=250),
+    dict(spans=["3 m"], supports=["fixed", "free"], udl={"D": "5 kN/m"}, points=[("L", "20 kN", "3 m")],
+         bracing="supports", standard="EN 1993-1-1", grade="S355", live=300, total=250),
+    dict(spans=["6 m", "2 m"], supports=["pin", "roller", "free"], udl={"D": "10 kN/m", "L": "15 kN/m"},
+         bracing="supports", standard="EN 1993-1-1", grade="S355", live=300, total=250),
 ]
 
 
@@ -549,7 +588,8 @@ def test_lightest_w_equals_brute_force_aisc(spec):
     assert res.chosen.ratio == pytest.approx(ratio, rel=RATIO_REL)
 
 
-@pytest.mark.parametrize("spec", EN_MEMBERS, ids=["restrained", "ends-only", "point-load", "propped"])
+@pytest.mark.parametrize("spec", EN_MEMBERS, ids=["restrained", "ends-only", "point-load", "propped", "cantilever",
+                                                  "overhang"])
 def test_lightest_eu_equals_brute_force_en(spec):
     want, ratio = brute_en(spec)
     res = _pick_spec(spec, ["IPE", "HEA", "HEB"])

@@ -93,11 +93,16 @@ def _exhaustive(m, web_depths, stock, n_best):
     return out
 
 
-@pytest.mark.parametrize("standard, grade", [("EN 1993-1-1", "S355"), ("AISC 360-22", "A572-50")])
-def test_pruning_and_screening_lose_nothing(standard, grade):
+@pytest.mark.parametrize("standard, grade, overhang", [("EN 1993-1-1", "S355", False), ("AISC 360-22", "A572-50", False),
+                                                     ("EN 1993-1-1", "S355", True), ("AISC 360-22", "A572-50", True)])
+def test_pruning_and_screening_lose_nothing(standard, grade, overhang):
     m = _small(standard=standard, grade=grade)
+    if overhang:  # a 10 m span with a 2.5 m overhang, restrained at the supports (overhang LTB in both standards)
+        m = _small(standard=standard, grade=grade, spans=["10 m", "2.5 m"], supports=["pin", "roller", "free"],
+                   bracing="supports", dead_udl="8 kN/m", live_udl="10 kN/m")
     depths = (0.7, 0.8, 0.9, 1.0)
     want = _exhaustive(m, depths, SMALL, 3)
+    assert len(want) == 3
     got = proportion(m, web_depth=("700 mm", "1000 mm"), depth_step="100 mm", stock=SMALL, n_best=3)
     key = lambda c: (round(c.hw, 6), round(c.tw, 6), round(c.bf, 6), round(c.tf, 6))  # noqa: E731
     assert [key(c) for c in got.best] == [key(c) for c in want]

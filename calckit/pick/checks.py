@@ -1,17 +1,21 @@
 """Every check of the member's standard for one candidate, through the design modules' own functions.
 
-The search never restates a design equation: it hands each candidate's demands (its envelope of M and
-V with its own self-weight, its unbraced segments, its deflections) to the design module's member check
-with ``steps=False`` (the numeric path) and reads the :class:`calckit.design.results.MemberResult`. The
-calc sheet of the chosen section is the same call with ``steps=True``
-(:meth:`calckit.pick.PickResult.member_result`).
+The search never restates a design equation: it hands each candidate's demands (the real moment and
+shear diagram of every strength load arrangement with its own self-weight, its unbraced segments, its
+deflections) to the design module's member check with ``steps=False`` (the numeric path) and reads the
+:class:`calckit.design.results.MemberResult`. The design module's demands record is prepared once per
+member and only its self-weight-dependent parts are redone per candidate. The calc sheet of the chosen
+section is the same call with ``steps=True`` (:meth:`calckit.pick.PickResult.member_result`).
 
 * AISC 360-22: :func:`calckit.design.aisc360.check_member` (flexure F2-F5 per unbraced segment with Cb
-  from Eq. F1-1, shear G2, concentrated forces J10 when a bearing length is given) and the deflection
-  check of :mod:`calckit.design.aisc360.deflection` per span.
-* EN 1993-1-1: :func:`calckit.design.en1993.check_member` (classification, bending with shear, shear,
-  lateral-torsional buckling per segment between restraints, transverse forces when a bearing length is
-  given) and :func:`calckit.design.en1993.deflection` per span.
+  from Eq. F1-1 of each diagram, shear G2, concentrated forces J10 when a bearing length is given) on
+  :func:`calckit.design.aisc360.demands` prepared once per member, and the deflection check of
+  :mod:`calckit.design.aisc360.deflection` per span.
+* EN 1993-1-1: :func:`calckit.design.en1993.check_member` on demands prepared once per member with
+  :func:`calckit.design.en1993.demands` (classification, bending with shear, shear, lateral-torsional
+  buckling per segment between restraints and of cantilevers and overhangs under every load
+  arrangement's own diagram, transverse forces when a bearing length is given) and
+  :func:`calckit.design.en1993.deflection` per span.
 
 :func:`checker_for` returns the callable the search uses: ``check(member, section, demands, steps)``.
 """
@@ -80,97 +84,184 @@ def _en_forces(m: Member, d: Demands):
 def en_check(m: Member, section, d: Demands, steps: bool = False, **extra) -> MemberResult:
     """EN 1993-1-1 member check of ``section`` for member ``m`` with demands ``d`` (see module docstring).
 
-    Bending with shear, shear and transverse forces come from :func:`calckit.design.en1993.check_member`
-    on the envelope (exact for those checks). Lateral-torsional buckling is checked per segment between
-    restraints with :func:`calckit.design.en1993.ltb` on the moment diagram of every strength combination
-    (and pattern arrangement) separately, the worst kept: C1 of a combination's own diagram, never of an
-    envelope curve (which mixes combinations and can overstate C1). ``extra`` goes to ``check_member``
-    (e.g. ``a``, the stiffener spacing).
+    One :func:`calckit.design.en1993.demands` per member (the response's strength arrangements, the
+    lateral-torsional restraints and the self-weight term), shared by every candidate:
+    ``Demands.with_self_weight(w)`` adds the candidate's own self-weight to every diagram, and
+    :func:`calckit.design.en1993.check_member` checks bending with shear and shear on the envelope of the
+    diagrams (exact for those checks), lateral-torsional buckling of each segment between restraints -
+    and of a cantilever or an overhang beyond the last restraint - under EACH real diagram (C1 of that
+    diagram, never of an envelope curve), and the transverse forces when a bearing length is given.
+    ``extra`` goes to ``check_member`` (e.g. ``a``, the stiffener spacing).
     """
     from ..design import en1993
-    from ..errors import NotCoveredError
 
     ctx = _context(m)
-    res = en1993.check_member(section, m.grade, x=d.x, M=(d.M_max, d.M_min), V=(d.V_max, d.V_min),
-                              restraints="continuous", forces=_en_forces(m, d), annex=m.annex, steps=steps,
-                              **extra)
+    resp = d.response
+    if resp is None:  # demands built without a Response: this candidate's diagrams (self-weight included)
+        Dw = en1993.demands(x=d.x, M=dict(zip(d.diagram_names, d.diagram_M)),
+                            V=dict(zip(d.diagram_names, d.diagram_V)), restraints=ctx["restraints"],
+                            forces=_en_forces(m, d))
+    else:
+        Dw = resp.design_demands(EN).with_self_weight(d.w_self, forces=_en_forces(m, d))
+    res = en1993.check_member(section, m.grade, demands=Dw, annex=m.annex, steps=steps, **extra)
     checks = list(_with_combinations(res.checks, d))
-    if m.bracing != "continuous":
-        if any(isinstance(s, str) and s == "free" for s in m.supports):
-            raise NotCoveredError("bracing: lateral-torsional buckling of a cantilever or overhang (a free end) is "
-                                  "not covered by calckit.design.en1993; use bracing='continuous' or check the "
-                                  "overhang separately with a given M_cr")
-        M, _ = d.diagrams()
-        mb_uniform: dict = {}
-        for a, b in m.segments():
-            worst = None
-            inside = (d.x > a) & (d.x < b)
-            xs = np.concatenate(([a], d.x[inside], [b]))
-            Lq = ctx["length_q"](b - a)
-            cands = []
-            for name, Mc in M.items():
-                Ms = np.concatenate(([np.interp(a, d.x, Mc)], Mc[inside], [np.interp(b, d.x, Mc)]))
-                j = int(np.argmax(np.abs(Ms)))
-                if Ms[j] != 0:
-                    cands.append((abs(float(Ms[j])), name, Ms, j))
-            cands.sort(key=lambda t: -t[0])
-            for peak, name, Ms, j in cands:
-                if worst is not None:
-                    # M_b,Rd of any diagram >= that of a uniform moment (C1 = 1) with the same peak (load at
-                    # the shear centre, zg = 0): a diagram with peak / M_b,Rd(C1 = 1) below the worst ratio
-                    # so far cannot govern, so it is not evaluated
-                    key = (round(b - a, 9), "uniform")
-                    Mb1 = mb_uniform.get(key)
-                    if Mb1 is None:
-                        Mb1 = mb_uniform[key] = en1993.ltb(section, m.grade, L=Lq, C1=1.0, M_Ed=_Q(peak, "moment"),
-                                                           annex=m.annex, steps=False).capacity
-                    if peak / Mb1 <= worst[0].ratio:
-                        continue
-                r = en1993.ltb(section, m.grade, L=Lq, moment_diagram=(xs - a, Ms), annex=m.annex, steps=False,
-                               segment=(a, b), location=float(xs[j]), combination=name)
-                if worst is None or r.ratio > worst[0].ratio:
-                    worst = (r, Ms, name, float(xs[j]))
-            if worst is not None:
-                r, Ms, name, xj = worst
-                if steps:  # the governing diagram again, with its calc-sheet steps
-                    r = en1993.ltb(section, m.grade, L=ctx["length_q"](b - a), moment_diagram=(xs - a, Ms),
-                                   annex=m.annex, steps=True, segment=(a, b), location=xj, combination=name)
-                checks.append(r)
     for dd in d.deflections:
         kind = "variable" if dd.kind == "live" else "total"
-        c = en1993.deflection(dd.value, ctx["length_q"](dd.length), kind=kind, limit=dd.divisor, annex=m.annex,
-                              name=dd.combination, steps=steps, location=dd.x)
         label = f"Deflection ({kind}, span {dd.span + 1})"
-        checks.append(replace(c, limit_state=label,
-                              note=("cantilever: limit on twice its length (common practice)"
-                                    if dd.length > m.spans[dd.span] * 1.5 else c.note)))
-    notes = tuple(n for n in res.notes if "continuous" not in n or m.bracing == "continuous")
-    return replace(res, checks=tuple(checks), notes=notes)
+        cant = dd.length > m.spans[dd.span] * 1.5
+        if steps:
+            c = en1993.deflection(dd.value, ctx["length_q"](dd.length), kind=kind, limit=dd.divisor, annex=m.annex,
+                                  name=dd.combination, steps=True, location=dd.x)
+            checks.append(replace(c, limit_state=label,
+                                  note="cantilever: limit on twice its length (common practice)" if cant else c.note))
+            continue
+        # the limit depends on the span only: the design module's check once per span and kind, then the
+        # same capacity against each candidate's deflection (CheckResult.with_demand)
+        key = ("en deflection", dd.span, kind, dd.length, dd.divisor, m.annex)
+        tpl = ctx.get(key)
+        if tpl is None:
+            tpl = ctx[key] = en1993.deflection(0.0, ctx["length_q"](dd.length), kind=kind, limit=dd.divisor,
+                                               annex=m.annex, steps=False)
+        checks.append(tpl.with_demand(dd.value, limit_state=label, location=dd.x, combination=dd.combination,
+                                      note="cantilever: limit on twice its length (common practice)" if cant
+                                      else tpl.note))
+    return replace(res, checks=tuple(checks))
 
 
 # ------------------------------------------------------------------------------------------ AISC 360
 def aisc_check(m: Member, section, d: Demands, steps: bool = False, **extra) -> MemberResult:
     """AISC 360-22 member check of ``section`` for member ``m`` with demands ``d``.
 
-    The moment and shear diagrams are passed per strength combination (the pattern-loading maximum and
-    minimum of each, when they differ), so that Cb (Eq. F1-1) is computed per combination diagram.
-    ``extra`` goes to :func:`calckit.design.aisc360.check_member` (e.g. ``stiffeners``, ``stiffener``).
+    The moment and shear diagrams of every strength combination and pattern arrangement go to
+    :func:`calckit.design.aisc360.check_member`, so that Cb (Eq. F1-1) is computed per real diagram. The
+    member's :func:`calckit.design.aisc360.demands` (segments, panels, notes) is prepared once per
+    response; per candidate only its segment moments (:func:`calckit.design.aisc360.cb.diagram_moments`
+    of each diagram, with the candidate's self-weight) and panel shears are replaced
+    (:func:`_aisc_candidate`). With bearing checks (concentrated forces from the shear jumps) the
+    demands are built per candidate by ``aisc360.check_member`` itself. ``extra`` goes to
+    :func:`calckit.design.aisc360.check_member` (e.g. ``stiffeners``, ``stiffener``).
     """
     from ..design import aisc360
     from ..design.aisc360._core import Calc
     from ..design.aisc360.deflection import deflection_check
 
-    M, V = d.diagrams()
     ctx = _context(m)
-    res = aisc360.check_member(section, m.grade, method=m.method, x=d.x, M=M, V=V, supports=ctx["supports"],
-                               bracing=ctx["bracing"], bearing=ctx["bearing"], steps=steps, **extra)
+    resp = d.response
+    if resp is None or ctx["bearing"]:
+        M, V = d.diagrams()
+        res = aisc360.check_member(section, m.grade, method=m.method, x=d.x, M=M, V=V, supports=ctx["supports"],
+                                   bracing=ctx["bracing"], bearing=ctx["bearing"], steps=steps, **extra)
+    else:
+        stiff = extra.pop("stiffeners", None)
+        D0, plan = resp.aisc_demands(ctx["supports"], ctx["bracing"], stiff, plan=_AiscPlan)
+        res = aisc360.check_member(section, m.grade, method=m.method, demands=_aisc_candidate(D0, d, plan),
+                                   steps=steps, **extra)
     checks = list(res.checks)
     for dd in d.deflections:
         cant = m.span_is_cantilever(dd.span)
-        c = deflection_check(dd.value, m.spans[dd.span], dd.divisor, dd.kind, Calc(steps), cantilever=cant,
-                             location=dd.x)
-        checks.append(replace(c, limit_state=f"{c.limit_state} (span {dd.span + 1})", combination=dd.combination))
+        if steps:
+            c = deflection_check(dd.value, m.spans[dd.span], dd.divisor, dd.kind, Calc(True), cantilever=cant,
+                                 location=dd.x)
+            checks.append(replace(c, limit_state=f"{c.limit_state} (span {dd.span + 1})", combination=dd.combination))
+            continue
+        # the limit depends on the span only: the design module's check once per span and kind, then the
+        # same capacity against each candidate's deflection (CheckResult.with_demand)
+        key = ("aisc deflection", dd.span, dd.kind, dd.divisor)
+        tpl = ctx.get(key)
+        if tpl is None:
+            c = deflection_check(0.0, m.spans[dd.span], dd.divisor, dd.kind, Calc(False), cantilever=cant)
+            tpl = ctx[key] = replace(c, limit_state=f"{c.limit_state} (span {dd.span + 1})")
+        checks.append(tpl.with_demand(dd.value, location=dd.x, combination=dd.combination))
     return replace(res, checks=tuple(checks))
+
+
+class _AiscPlan:
+    """What :func:`_aisc_candidate` needs from the member once: per unbraced segment of ``D0`` the
+    stations inside it and the quarter-point moments of each diagram's other loads and of the unit
+    self-weight (np.interp is linear in the moments, so a candidate's are qA + f w qU), per shear panel
+    its stations."""
+
+    def __init__(self, D0, resp) -> None:
+        x = resp.x
+        segs = D0.segments
+        n = len(segs)
+        pts = np.array([(sg.a, sg.a + 0.25 * sg.Lb, sg.a + 0.5 * sg.Lb, sg.a + 0.75 * sg.Lb, sg.b) for sg in segs])
+        flat = pts.ravel()
+        A = resp.A
+        self.qA = np.array([np.interp(flat, x, Mk) for Mk in A["M"]]).reshape(len(A["M"]), n, 5)
+        self.qU = np.interp(flat, x, resp.unit["M"]).reshape(n, 5)
+        self.f = A["f"]
+        span = max(float(x[-1] - x[0]), 1e-9)
+        self.ranges = [(int(np.searchsorted(x, sg.a - 1e-9 * span, "left")),
+                        int(np.searchsorted(x, sg.b + 1e-9 * span, "right"))) for sg in segs]
+        tol = 1e-9 * max(D0.x1 - D0.x0, 1.0)
+        self.panels = [np.nonzero((x >= pd.a0 - tol) & (x <= pd.a1 + tol))[0] for pd in D0.shear]
+
+
+def _aisc_candidate(D0, d: Demands, plan: _AiscPlan | None = None):
+    """The member's aisc360 Demands ``D0`` with the segment moments and panel shears of candidate ``d``.
+
+    Per segment and diagram the values of :func:`calckit.design.aisc360.cb.diagram_moments` (Mmax, MA,
+    MB, MC and the largest sagging and hogging moments, same rules), vectorised over the diagrams; an
+    item is left out when another diagram of the segment has larger or equal sagging and hogging
+    moments and a smaller or equal Cb (Eq. F1-1; Mn does not decrease with Cb, so it cannot govern).
+    Per panel: the largest |V| over the diagrams, as ``aisc360.demands``."""
+    from ..design.aisc360.cb import F1_1, diagram_moments
+    from ..design.aisc360.demands import PanelDemand, SegmentDemand
+
+    names, M, V, x = d.diagram_names, d.diagram_M, d.diagram_V, d.x
+    segs = D0.segments
+    K = len(names)
+    if plan is not None:
+        q = (plan.qA + (plan.f * d.w_self)[:, None, None] * plan.qU[None]).tolist()
+    fixed_cb = D0.Cb is not None or D0.bracing == "continuous"
+    fl = []
+    for i, sg in enumerate(segs):
+        if plan is None:
+            items = [diagram_moments(x, M[k], (sg,))[0] for k in range(K)]
+        else:  # diagram_moments' rules on the candidate's arrays (small: plain floats are faster than numpy)
+            i0, i1 = plan.ranges[i]
+            inside = i1 > i0
+            if inside:
+                sub = M[:, i0:i1]
+                jp, jn = sub.argmax(axis=1), sub.argmin(axis=1)
+                r = np.arange(K)
+                vp, vn = sub[r, jp].tolist(), sub[r, jn].tolist()
+                xs_p, xs_n = x[i0 + jp].tolist(), x[i0 + jn].tolist()
+            items = []
+            for k in range(K):
+                qa, qA_, qB_, qC_, qb = q[k][i]
+                bp, xp = (qa, sg.a) if qa >= qb else (qb, sg.b)
+                bn, xn = (qa, sg.a) if qa <= qb else (qb, sg.b)
+                if inside:
+                    if vp[k] > bp:
+                        bp, xp = vp[k], xs_p[k]
+                    if vn[k] < bn:
+                        bn, xn = vn[k], xs_n[k]
+                Mpos, Mneg = max(bp, 0.0), max(-bn, 0.0)
+                items.append((max(Mpos, Mneg), abs(qA_), abs(qB_), abs(qC_), Mpos, xp, Mneg, xn))
+        if fixed_cb or sg.free_end:
+            cbs = [1.0] * K
+        else:
+            cbs = [F1_1.fast(M_max=it[0], M_A=it[1], M_B=it[2], M_C=it[3]) if it[0] > 0 else 1.0 for it in items]
+        for k, it in enumerate(items):
+            if any(j != k and items[j][4] >= it[4] and items[j][6] >= it[6] and cbs[j] <= cbs[k]
+                   and (items[j][4] > it[4] or items[j][6] > it[6] or cbs[j] < cbs[k] or j < k)
+                   for j in range(K)):
+                continue
+            fl.append(SegmentDemand(sg, names[k], *it))
+    tol = 1e-9 * max(D0.x1 - D0.x0, 1.0)
+    panels = []
+    for ip, pd in enumerate(D0.shear):
+        idx = plan.panels[ip] if plan is not None else np.nonzero((x >= pd.a0 - tol) & (x <= pd.a1 + tol))[0]
+        if not idx.size:
+            panels.append(pd)
+            continue
+        Va = np.abs(V[:, idx])
+        k, j = np.unravel_index(int(np.argmax(Va)), Va.shape)
+        panels.append(PanelDemand(pd.a0, pd.a1, pd.stiffened, pd.end_panel, float(Va[k, j]), float(x[idx[j]]),
+                                  names[k]))
+    return replace(D0, flexure=tuple(fl), shear=tuple(panels))
 
 
 def _aisc_bearing(m: Member) -> tuple:

@@ -1,25 +1,31 @@
-"""Load effects of every candidate section from two linear analyses (the search's fast path).
+"""Load effects of every candidate section from one linear analysis (the search's fast path).
 
 The beam response is linear in the loads, and for a prismatic beam on rigid supports the shear and
-moment do not depend on EI while the deflection is proportional to 1/EI. So the member is analysed once,
-at a reference rigidity EI_ref, for its own load cases (each split per span for pattern loading) and
-for a unit self-weight case (1 N/m over the whole member). For a candidate of self-weight w (N/m) and
-rigidity EI, in combination c with factor f_c on the permanent case:
+moment do not depend on EI while the deflection is proportional to 1/EI. So the member is analysed once
+(:class:`calckit.analysis.Beam`, at a reference rigidity EI_ref) for its own load cases and a unit
+self-weight case, and :func:`calckit.analysis.arrangements` gives the real diagram of every combination
+and pattern arrangement of its variable cases. For a candidate of self-weight w (N/m) and rigidity EI,
+in arrangement k with factor f_k on the permanent case:
 
-    M_c(x) = M_c,loads(x) + f_c w M_unit(x)          (same for V and the reactions)
-    delta_c(x) = (delta_c,loads(x) + f_c w delta_unit(x)) EI_ref / EI
+    M_k(x) = M_k,loads(x) + f_k w M_unit(x)          (same for V and the reactions)
+    delta_k(x) = (delta_k,loads(x) + f_k w delta_unit(x)) EI_ref / EI
 
-Pattern loading is that of :mod:`calckit.analysis.envelope` (the self-weight is permanent, so never
-patterned, and adds linearly to each combination's pattern extremes). The values are taken at the
-envelope's stations (every grid node on both sides, about ``n_per_span`` intervals per span, the brace
-points and the exact extreme positions of each combination, so the peak moment is not missed between
-stations). With spring supports the moments depend on EI; the search then re-analyses each candidate
+The envelope of a combination is the maximum (minimum) over its arrangements at each station - exact,
+as ``arrangements`` enumerates every on/off arrangement up to :data:`MAX_PER_COMBINATION` per
+combination (beyond that its reduced set of common practice is used for the diagrams and the exact
+envelope of :func:`calckit.analysis.envelope` for the extremes); the self-weight is permanent, never
+patterned, so its term is common to a combination's arrangements. The diagrams themselves (not the
+envelope) go to the checks that need a real moment diagram: Cb (AISC 360-22 F1-1) and C1 (EN 1993-1-1).
+The values are taken at stations of :func:`calckit.analysis.envelope.stations_for` (every grid node on
+both sides, about ``n_per_span`` intervals per span, the brace points and the exact extreme positions of
+every arrangement at the self-weight ``w_ref``, so the peak moment is not missed between stations). With
+spring supports the moments depend on EI; the search then re-analyses each candidate
 (:func:`member_response` reports ``exact_scaling = False``).
 """
 from __future__ import annotations
 
-import itertools
-from dataclasses import dataclass
+from dataclasses import dataclass, field
+from typing import Any
 
 import numpy as np
 
@@ -30,8 +36,8 @@ __all__ = ["Response", "Demands", "DeflectionDemand", "member_response", "EI_REF
 
 #: reference flexural rigidity of the analysis (N*m2); deflections are scaled by EI_REF / EI
 EI_REF = 1.0e8
-#: most variable parts (variable cases x spans) of one combination whose arrangements are all enumerated
-MAX_ENUMERATED = 4
+#: most arrangements of one combination that calckit.analysis.arrangements enumerates (all of them)
+MAX_PER_COMBINATION = 256
 
 
 @dataclass(frozen=True)
@@ -87,6 +93,7 @@ class Demands:
     diagram_names: tuple[str, ...] = ()
     diagram_M: np.ndarray | None = None
     diagram_V: np.ndarray | None = None
+    response: Any = field(default=None, repr=False, compare=False)  #: the Response it was derived from
 
     def diagrams(self) -> tuple[dict, dict]:
         """The moment and shear diagrams of every strength combination and pattern arrangement on ``x``:
@@ -198,162 +205,209 @@ def _deflection_combos(m: Member):
 
 
 class Response:
-    """Per-combination pattern extremes of the member's loads and the unit self-weight response."""
+    """The member's strength and serviceability responses per load arrangement, and the unit self-weight
+    response (module docstring), on the stations ``x``.
+
+    Built on the public analysis API: :class:`calckit.analysis.Beam` (the member's loads and a self-weight
+    case of ``w_ref`` N/m) and :func:`calckit.analysis.arrangements` (the real diagram of every
+    combination and pattern arrangement). Attributes: ``x`` stations, ``span_of_station``; ``A`` the
+    strength arrangements that can govern (:func:`_undominated`): {"names", "M", "V" (A, S) and "R"
+    (A, P) of the other loads, "f" (A,) the self-weight factor}; ``S`` per strength combination
+    {q: (max (C, S), min (C, S), unit (S,))} for q in M, V, R, with "f" and "names"; ``DL``, ``DT`` the
+    same for the deflection of the live and total serviceability combinations (None without them).
+    """
 
     def __init__(self, m: Member, *, n_per_span: int = 40, w_ref: float = 500.0, EI: float = EI_REF):
+        from ..analysis import Beam, arrangements
         from ..analysis.envelope import stations_for
-        from ..analysis.loads import LinearLoad, Support, parse_support
-        from ..analysis.solver import Layout, check_stability, make_grid, solve_batch, split_by_span
+        from ..units import Q_
 
         self.member = m
-        nodes = m.nodes
-        sup = tuple(parse_support(s, i, nodes[i]) if isinstance(s, str) else Support(i, nodes[i], "spring", float(s))
-                    for i, s in enumerate(m.supports))
-        self.exact_scaling = not any(s.kind == "spring" for s in sup)
-        n = len(m.spans)
         self.EI_ref = float(EI)
-        layout = Layout(tuple(nodes), (self.EI_ref,) * n, sup, ())
-        check_stability(layout)
-        loads = list(m.loads)
-        sw = LinearLoad(1.0, 1.0, 0.0, m.L, SW_CASE, "self_weight")
-        cases = m.cases + ([SW_CASE] if m.self_weight else [])
+        supports = [s if isinstance(s, str) else Q_(float(s), "N/m") for s in m.supports]
+        self.exact_scaling = all(isinstance(s, str) for s in m.supports)
+        beam = Beam([Q_(s, "m") for s in m.spans], supports, EI=Q_(self.EI_ref, "N*m**2"))
+        for ld in m.loads:
+            _add_load(beam, ld, Q_)
+        self.w_ref = float(w_ref) if m.self_weight else 0.0
         if m.self_weight:
-            loads.append(sw)
-        pos = []
-        for ld in loads:
-            pos += [ld.start, ld.end] if isinstance(ld, LinearLoad) else [ld.x]
-        grid = make_grid(layout, pos)
-        sets = []
-        for case in cases:
-            sets.extend(split_by_span(layout, [ld for ld in loads if ld.case == case]))
-        batch = solve_batch(layout, grid, sets)
-        self.layout, self.grid, self.batch, self.cases = layout, grid, batch, cases
+            beam.udl(Q_(1.0, "N/m"), SW_CASE)
+        sol = beam.solve()
+        self.beam, self.solution, self.grid = beam, sol, sol.grid
+        self.cases = sol.cases
         self.strength = _strength_combos(m)
         self.live, self.total = _deflection_combos(m)
-        # stations: grid nodes both sides, n_per_span, brace points and exact extreme positions
+        groups = {"S": self.strength, "DL": self.live, "DT": self.total}
+        arr = {g: (arrangements(sol, self._at_w_ref(cs), max_per_combination=MAX_PER_COMBINATION)
+                   if cs else {}) for g, cs in groups.items()}
+        self._n_per_span = n_per_span
+        # stations: grid nodes both sides, n_per_span, brace points and the exact extremes of every
+        # arrangement (at the self-weight w_ref) in every span
         extra = list(m.brace_positions())
-        extra += self._extreme_positions(self.strength, w_ref, batch.M)
-        extra += self._extreme_positions(self.live + self.total, w_ref, batch.delta)
-        seg, t = stations_for(grid, n_per_span, extra)
-        self.x = grid.x[seg] + t
-        self.span_of_station = grid.span[seg]
-        horner = _horner_fn()
-        self._Q = {"V": horner(batch.V, seg, t), "M": horner(batch.M, seg, t),
-                   "defl": horner(batch.delta, seg, t), "R": batch.R}
-        self.sw_cols = slice(cases.index(SW_CASE) * n, (cases.index(SW_CASE) + 1) * n) if m.self_weight else None
-        self.S = self._per_combo(self.strength, ("M", "V", "R"))
-        self.A = self.arrangements(self.strength)
-        self.DL = self._per_combo(self.live, ("defl",)) if self.live else None
-        self.DT = self._per_combo(self.total, ("defl",)) if self.total else None
+        for g, coef in (("S", "Mc"), ("DL", "deltac"), ("DT", "deltac")):
+            extra += self._extreme_positions(arr[g], groups[g], coef)
+        self._extra = extra
+        seg, t = stations_for(self.grid, n_per_span, extra)
+        self._seg, self._t = seg, t
+        self.x = self.grid.x[seg] + t
+        self.span_of_station = self.grid.span[seg]
+        unit = [sol[SW_CASE]] if m.self_weight else []
+        self.unit = {q: (self._values(unit, q)[0] if unit else np.zeros(self.x.size)) for q in ("M", "V", "defl")}
+        self.unit["R"] = np.asarray(unit[0].R, float) if unit else np.zeros(len(m.supports))
+        rows = {g: self._rows(arr[g], groups[g], ("M", "V", "R") if g == "S" else ("defl",)) for g in groups}
+        self.S = self._per_combo(self.strength, rows["S"], ("M", "V", "R"))
+        st = rows["S"]
+        keep = _undominated(st["M"], st["V"], st["f"]) if st["names"] else []
+        self.A = {"names": tuple(st["names"][i] for i in keep), "M": st["M"][keep], "V": st["V"][keep],
+                  "R": st["R"][keep], "f": st["f"][keep]}
+        self.DL = self._per_combo(self.live, rows["DL"], ("defl",)) if self.live else None
+        self.DT = self._per_combo(self.total, rows["DT"], ("defl",)) if self.total else None
         self.segments = m.segments()
+        self._design: dict = {}
 
     # -- precomputation ------------------------------------------------------------------------------
-    def _extreme_positions(self, combos, w_ref: float, coefs) -> list[float]:
-        """Exact positions of the extremes in each span of each combination (all variable loads on)."""
-        from ..analysis.piecewise import extrema
+    def _at_w_ref(self, combos):
+        """The combinations with the self-weight case at w_ref N/m (the SW case is 1 N/m)."""
+        from ..analysis.combinations import Combination
 
-        n = len(self.member.spans)
+        if not self.member.self_weight:
+            return list(combos)
         out = []
         for c in combos:
-            w = np.zeros(len(self.cases) * n)
-            for k, f in c.factors.items():
-                if k in self.cases:
-                    i = self.cases.index(k)
-                    w[i * n:(i + 1) * n] = f * (w_ref if k == SW_CASE else 1.0)
-            coef = np.tensordot(w, coefs, axes=1)
-            for sp in range(n):
-                segs = np.nonzero(self.grid.span == sp)[0]
-                hi, lo = extrema(self.grid.x, coef, segs, self.grid.span)
+            f = dict(c.factors)
+            if SW_CASE in f:
+                f[SW_CASE] = f[SW_CASE] * self.w_ref
+            out.append(Combination(c.name, f, c.kind, c.reference, c.variable))
+        return out
+
+    def _extreme_positions(self, arr: dict, combos, coef: str) -> list[float]:
+        """Exact positions of the extremes in each span of each combination's arrangement with every
+        variable load on (:func:`calckit.analysis.piecewise.extrema` of its coefficients)."""
+        from ..analysis.piecewise import extrema
+
+        g = self.grid
+        names = {c.name for c in combos}
+        out = []
+        for label, r in arr.items():
+            if label not in names:
+                continue
+            for sp in range(len(self.member.spans)):
+                segs = np.nonzero(g.span == sp)[0]
+                hi, lo = extrema(g.x, getattr(r, coef), segs, g.span)
                 out += [hi.x, lo.x]
         return out
 
-    def _per_combo(self, combos, quantities):
-        """{q: (hi_loads (C, S), lo_loads (C, S), unit (S,))} and the self-weight factor per combination."""
-        wb, wp = _weights_fn()(combos, self.cases, len(self.member.spans))
-        f_sw = np.zeros(len(combos))
-        if self.sw_cols is not None:
-            f_sw = wb[:, self.sw_cols][:, 0].copy()
-            wb = wb.copy()
-            wb[:, self.sw_cols] = 0.0
-        out = {"f": f_sw, "names": tuple(c.name for c in combos)}
-        n = len(self.member.spans)
+    def _values(self, results, q: str) -> np.ndarray:
+        """Values (R, S) of BeamResults at the stations, from their piecewise-polynomial coefficients
+        (each station belongs to one segment: a node's left and right limits are two stations)."""
+        c = np.stack([getattr(r, _COEF[q]) for r in results])[:, self._seg, :]  # (R, S, n)
+        out = c[..., -1]
+        for p in range(c.shape[-1] - 2, -1, -1):
+            out = out * self._t + c[..., p]
+        return out
+
+    def _rows(self, arr: dict, combos, quantities) -> dict:
+        """Per arrangement: the other loads' values (the self-weight part taken out) and the self-weight
+        factor, with the combination each belongs to."""
+        labels, res = list(arr), list(arr.values())
+        f = np.array([float(r.factors.get(SW_CASE, 0.0)) / self.w_ref if self.w_ref else 0.0 for r in res])
+        out = {"names": labels, "f": f, "comb": [_combination_of(lb, combos) for lb in labels]}
         for q in quantities:
-            Q = self._Q[q]
-            hi, lo = _pattern(Q, wb, wp, len(self.cases), n)
-            unit = Q[self.sw_cols].sum(axis=0) if self.sw_cols is not None else np.zeros(Q.shape[1])
-            out[q] = (hi, lo, unit)
+            if not res:
+                out[q] = np.zeros((0, len(self.member.supports) if q == "R" else self.x.size))
+                continue
+            v = np.array([np.asarray(r.R, float) for r in res]) if q == "R" else self._values(res, q)
+            out[q] = v - (f * self.w_ref)[:, None] * self.unit[q][None, :]
         return out
 
-    def arrangements(self, combos) -> dict:
-        """Genuine load arrangements of each combination, for Cb / C1 (which need a real diagram).
+    def _per_combo(self, combos, rows: dict, quantities) -> dict:
+        """{q: (max (C, S), min (C, S), unit (S,))} over each combination's arrangements, "f", "names".
 
-        Each variable case of a combination is split per span (pattern loading). With at most
-        :data:`MAX_ENUMERATED` variable parts, every on/off arrangement is a diagram (exact); with more,
-        the arrangements are: all on, all off, alternate spans on (each parity), and the combination's
-        per-station pattern maximum and minimum curves (an approximation for the shape, conservative for
-        the peak). Returns {"names", "M" (A, S), "V" (A, S), "f" (A,)}: the loads' part and the
-        self-weight factor of each arrangement (duplicates removed).
-        """
-        wb, wp = _weights_fn()(combos, self.cases, len(self.member.spans))
-        n = len(self.member.spans)
-        names, weights, f_sw, curves = [], [], [], []
-        seen = set()
+        Exact: the self-weight is not patterned, so its term f_c w U is common to a combination's
+        arrangements. A combination whose arrangements were a reduced set (more than
+        MAX_PER_COMBINATION) takes its extremes from the exact envelope instead."""
+        C = len(combos)
+        out = {"f": np.zeros(C), "names": tuple(c.name for c in combos)}
+        comb = rows["comb"]
+        for q in quantities:
+            W = rows[q].shape[1]
+            hi, lo = np.full((C, W), -np.inf), np.full((C, W), np.inf)
+            for ci, c in enumerate(combos):
+                idx = [i for i, nm in enumerate(comb) if nm == c.name]
+                if idx:
+                    hi[ci], lo[ci] = rows[q][idx].max(axis=0), rows[q][idx].min(axis=0)
+                    out["f"][ci] = rows["f"][idx[0]]
+                else:  # nothing loaded in this combination
+                    hi[ci] = lo[ci] = 0.0
+            out[q] = (hi, lo, self.unit[q])
         for ci, c in enumerate(combos):
-            base = wb[ci].copy()
-            f = 0.0
-            if self.sw_cols is not None:
-                f = float(base[self.sw_cols][0])
-                base[self.sw_cols] = 0.0
-            cols = np.nonzero(wp[ci])[0]
-            if cols.size <= MAX_ENUMERATED:
-                masks = list(itertools.product((1, 0), repeat=int(cols.size)))
-            else:
-                spans_of = cols % n
-                masks = [tuple([1] * cols.size), tuple([0] * cols.size),
-                         tuple(int(sp % 2 == 0) for sp in spans_of), tuple(int(sp % 2 == 1) for sp in spans_of)]
-                curves.append((ci, c.name, f))
-            for mask in masks:
-                w = base.copy()
-                w[cols] += wp[ci][cols] * np.asarray(mask, float)
-                key = (tuple(np.round(w, 12)), round(f, 12))
-                if key in seen:
-                    continue
-                seen.add(key)
-                names.append(c.name + self._label(cols, mask, n))
-                weights.append(w)
-                f_sw.append(f)
-        W = np.array(weights)
-        Mw, Vw, fw = W @ self._Q["M"], W @ self._Q["V"], np.array(f_sw)
-        keep = _undominated(Mw, Vw, fw)
-        out = {"names": [names[i] for i in keep], "M": Mw[keep], "V": Vw[keep], "f": fw[keep]}
-        if curves:  # per-station pattern curves of the combinations with many variable parts
-            for q in ("M", "V"):
-                hi, lo, _ = self.S[q]
-                extra = [arr[ci] for ci, _, _ in curves for arr in (hi, lo)]
-                out[q] = np.vstack([out[q], *extra])
-            for ci, name, f in curves:
-                out["names"] += [f"{name} (pattern maximum at each station)",
-                                 f"{name} (pattern minimum at each station)"]
-                out["f"] = np.concatenate([out["f"], [f, f]])
-        out["names"] = tuple(out["names"])
+            if not _exhaustive(c, self.cases, len(self.member.spans)):
+                self._exact_envelope(ci, c, out, quantities)
         return out
 
-    def _label(self, cols, mask, n: int) -> str:
-        """' (L off)', ' (L on span 1)' ... for an arrangement; '' when every variable part is on."""
-        if all(mask):
-            return ""
-        parts = {}
-        for col, on in zip(cols, mask):
-            case = self.cases[int(col) // n]
-            parts.setdefault(case, []).append((int(col) % n + 1, on))
-        words = []
-        for case, items in parts.items():
-            on = [sp for sp, o in items if o]
-            if not on:
-                words.append(f"{case} off")
-            elif len(on) < len(items):
-                words.append(f"{case} on span{'s' if len(on) > 1 else ''} {', '.join(map(str, on))}")
-        return f" ({'; '.join(words)})" if words else ""
+    def _exact_envelope(self, ci: int, c, out: dict, quantities) -> None:
+        """Replace combination ci's extremes by the exact envelope (public calckit.analysis.envelope) of its
+        other loads (the self-weight term is added per candidate as for the others)."""
+        from ..analysis.combinations import Combination
+        from ..analysis.envelope import envelope
+
+        f = {k: v for k, v in c.factors.items() if k != SW_CASE}
+        env = envelope(self.solution, [Combination(c.name, f, c.kind, c.reference, c.variable)],
+                       stations=self._extra, n_per_span=self._n_per_span)
+        same = env.x.shape == self.x.shape and np.allclose(env.x, self.x, rtol=0, atol=1e-9 * self.member.L)
+        for q in quantities:
+            hi, lo, _ = out[q]
+            if q == "R":
+                hi[ci], lo[ci] = env.R_max, env.R_min
+                continue
+            a_hi, a_lo = (env.M_max, env.M_min) if q == "M" else (env.V_max, env.V_min) if q == "V" else \
+                (env.defl_max, env.defl_min)
+            if not same:  # pragma: no cover - the same station rule gives the same stations
+                a_hi, a_lo = np.interp(self.x, env.x, a_hi), np.interp(self.x, env.x, a_lo)
+            hi[ci] = np.maximum(hi[ci], a_hi)
+            lo[ci] = np.minimum(lo[ci], a_lo)
+        out["f"][ci] = float(c.factors.get(SW_CASE, 0.0)) if self.member.self_weight else 0.0
+
+    def aisc_demands(self, supports, bracing, stiffeners=None, plan=None):
+        """The member's :func:`calckit.design.aisc360.demands` on the loads-only diagrams (its segments,
+        panels and notes are those of every candidate; the moments are replaced per candidate); with
+        ``plan`` (a class taking (demands, response)) the pair (demands, plan), both kept."""
+        key = ("AISC", None if stiffeners is None else tuple(np.atleast_1d(stiffeners).tolist())
+               if not isinstance(stiffeners, str) else stiffeners)
+        D = self._design.get(key)
+        if D is None:
+            from ..design import aisc360
+
+            A = self.A
+            names = A["names"]
+            if len(self._design) > 32:  # a girder search meets many stiffener layouts
+                self._design = {k: v for k, v in self._design.items() if not (isinstance(k, tuple) and k[0] == "AISC")}
+            D = self._design[key] = aisc360.demands(x=self.x, M=dict(zip(names, A["M"])), V=dict(zip(names, A["V"])),
+                                                    supports=supports, bracing=bracing, stiffeners=stiffeners)
+        if plan is None:
+            return D
+        pk = key + ("plan",)
+        P = self._design.get(pk)
+        if P is None:
+            P = self._design[pk] = plan(D, self)
+        return D, P
+
+    def design_demands(self, standard: str):
+        """The design module's member-level demands, prepared once per response and shared by every
+        candidate: for EN 1993-1-1 :func:`calckit.design.en1993.demands` of the strength arrangements with
+        the self-weight term (``Demands.with_self_weight(w)`` per candidate)."""
+        D = self._design.get(standard)
+        if D is None:
+            from ..design import en1993
+
+            m = self.member
+            A = self.A
+            names = A["names"]
+            restraints = "continuous" if m.bracing == "continuous" else list(m.brace_positions())
+            D = self._design[standard] = en1993.demands(
+                x=self.x, M=dict(zip(names, A["M"])), V=dict(zip(names, A["V"])), restraints=restraints,
+                self_weight=(self.unit["M"], self.unit["V"], A["f"]))
+        return D
 
     # -- per candidate ---------------------------------------------------------------------------------
     def demands(self, w_self: np.ndarray, EI: np.ndarray) -> list[Demands]:
@@ -387,7 +441,7 @@ class Response:
                 V_min=env["V"][1][i], M_max_by=env["M"][2][i], M_min_by=env["M"][3][i],
                 V_max_by=env["V"][2][i], V_min_by=env["V"][3][i], R_max=R_max[i], R_by=R_by[i],
                 combinations=S["names"], segments=self.segments, deflections=dd, w_self=float(w[i]),
-                EI=float(EI[i]), diagram_names=A["names"], diagram_M=DM[i], diagram_V=DV[i]))
+                EI=float(EI[i]), diagram_names=A["names"], diagram_M=DM[i], diagram_V=DV[i], response=self))
         return out
 
     def _deflections(self, w, EI, D, kind: str, divisor: float):
@@ -415,54 +469,77 @@ def _undominated(M: np.ndarray, V: np.ndarray, f: np.ndarray, rel: float = 1e-9)
 
     An arrangement whose moment and shear diagrams and self-weight factor are c times another's, with
     0 < c <= 1, has the same shape (so the same Cb or C1) and smaller demands for every candidate: it can
-    never govern a check, and is left out (exact duplicates keep their first copy).
+    never govern a check, and is left out (exact duplicates keep their first copy). Proportionality is
+    tested on the whole vector (M, V, f): residual of the projection <= 1e-6 of its norm (rows the same
+    shape to rounding; the residual is found by a difference, exact to about 1e-8 of the norm).
     """
     n = len(f)
-    drop = set()
+    if n == 0:
+        return []
     vec = np.hstack([M, V, f[:, None] * np.max(np.abs(M), initial=1.0)])
-    norms = np.einsum("ij,ij->i", vec, vec)
+    G = vec @ vec.T
+    norms = np.diag(G).copy()
+    safe = np.where(norms > 0, norms, 1.0)
+    c = G / safe[None, :]  # c[i, j]: projection coefficient of row i on row j
+    resid = norms[:, None] - G * c  # |v_i - c v_j|^2
+    prop = (resid <= 1e-12 * norms[:, None]) & (norms[None, :] > 0) & (c > 0) & (c <= 1 + rel)
+    np.fill_diagonal(prop, False)
+    drop = set(int(i) for i in np.nonzero(norms == 0)[0])
     for i in range(n):
-        if norms[i] == 0:
-            drop.add(i)
+        if i in drop:
             continue
-        for j in range(n):
-            if i == j or j in drop or norms[j] == 0:
+        for j in np.nonzero(prop[i])[0]:
+            j = int(j)
+            if j in drop:
                 continue
-            c = float(vec[i] @ vec[j]) / norms[j]
-            if 0 < c <= 1 + rel and np.allclose(vec[i], c * vec[j], rtol=0, atol=rel * np.sqrt(norms[j])):
-                if c < 1 - rel or j < i:
-                    drop.add(i)
-                    break
+            if c[i, j] < 1 - rel or j < i:
+                drop.add(i)
+                break
     return [i for i in range(n) if i not in drop]
 
 
-def _horner_fn():
-    try:
-        from ..analysis.envelope import _horner  # same evaluation as the envelope
-        return _horner
-    except ImportError:  # pragma: no cover - fallback if the analysis module renames it
-        def horner(c, seg, t):
-            ck = c[:, seg, :]
-            out = ck[..., -1]
-            for p in range(c.shape[-1] - 2, -1, -1):
-                out = out * t + ck[..., p]
-            return out
-        return horner
+_COEF = {"M": "Mc", "V": "Vc", "defl": "deltac"}
 
 
-def _weights_fn():
-    from ..analysis.envelope import _weights
+def _add_load(beam, ld, Q_) -> None:
+    """Add a load record of :mod:`calckit.analysis.loads` to a Beam through its public methods."""
+    from ..analysis.loads import Couple, LinearLoad, PointLoad
 
-    def weights(combos, cases, n_spans):
-        wb, wp, _, _ = _weights(combos, cases, n_spans, True, "zero")
-        return wb, wp
-    return weights
+    if isinstance(ld, PointLoad):
+        beam.point(Q_(ld.P, "N"), Q_(ld.x, "m"), ld.case)
+    elif isinstance(ld, Couple):
+        beam.moment(Q_(ld.M, "N*m"), Q_(ld.x, "m"), ld.case)
+    elif isinstance(ld, LinearLoad):
+        a, b = Q_(ld.start, "m"), Q_(ld.end, "m")
+        if ld.w1 == ld.w2:
+            beam.udl(Q_(ld.w1, "N/m"), ld.case, a, b)
+        else:
+            beam.linear(Q_(ld.w1, "N/m"), Q_(ld.w2, "N/m"), a, b, ld.case)
+    else:  # pragma: no cover - Member only holds these records
+        raise InputError(f"loads: got {ld!r}; expected PointLoad, Couple or LinearLoad records")
 
 
-def _pattern(Q, wb, wp, n_cases, n_spans):
-    from ..analysis.envelope import _pattern_extremes
+def _combination_of(label: str, combos) -> str:
+    """The combination an arrangement label of :func:`calckit.analysis.arrangements` belongs to."""
+    best = ""
+    for c in combos:
+        if (label == c.name or label.startswith(c.name + " [")) and len(c.name) > len(best):
+            best = c.name
+    return best
 
-    return _pattern_extremes(Q, wb, wp, "sum", n_cases, n_spans)
+
+def _exhaustive(c, cases, n_spans: int) -> bool:
+    """True when :func:`calckit.analysis.arrangements` enumerates every arrangement of combination c
+    (its documented rule: at most MAX_PER_COMBINATION; the cases patterned are ``c.pattern`` or
+    ``c.variable`` with a non-zero factor)."""
+    if n_spans == 1:
+        return True
+    p = getattr(c, "pattern", None)
+    if p is None:
+        p = getattr(c, "variable", None) or ()
+    p = {p} if isinstance(p, str) else set(p)
+    k = sum(1 for case, f in c.factors.items() if case in p and case in cases and float(f) != 0.0)
+    return (2 ** n_spans) ** k <= MAX_PER_COMBINATION
 
 
 def member_response(m: Member, **kw) -> Response:

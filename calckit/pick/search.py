@@ -175,6 +175,9 @@ def _notes(m: Member, resp: Response, fams) -> tuple[str, ...]:
         out.append("compression flange continuously braced (Lb = 0)")
     else:
         out.append(f"compression flange braced at {', '.join(f'{x:.3g} m' for x in m.brace_positions())}")
+        out.append(f"lateral-torsional buckling of each unbraced segment ({'Cb' if m.standard == AISC else 'C1'}) "
+                   f"under the real moment diagram of each of the {len(resp.A['names'])} strength load "
+                   "arrangements that can govern (calckit.analysis.arrangements), never an envelope curve")
     lim = []
     if m.defl_live:
         lim.append(f"live load L/{m.defl_live:g}")

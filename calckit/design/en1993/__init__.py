@@ -10,8 +10,12 @@ Public API (units at the boundary: pint quantities or strings such as "5.7 m", "
     en1993.deflection(delta, span, kind="total")                # 7.2 (limits from the annex set)
     en1993.classify(section, steel)                             # Table 5.2
     en1993.check_member(section, steel, x=..., M=..., V=..., restraints=..., forces=..., deflections=...)
+    arr = calckit.analysis.arrangements(solution, combinations)     # the real diagram of every arrangement:
+    en1993.check_member(section, steel, analysis=arr, restraints=...)  # LTB per segment under each diagram
     D = en1993.demands(x=..., M=..., V=..., restraints=..., zg=...)   # once per member, for a search:
     en1993.check_member(section, steel, demands=D, steps=False)       # then per section
+    D = en1993.demands(x=..., M={name: M_loads}, V=..., self_weight=(M_unit, V_unit, factors))
+    en1993.check_member(section, steel, demands=D.with_self_weight(w), steps=False)  # w: its self-weight
     en1993.ltb(section, steel, L="2 m", moment_diagram="udl", cantilever=True)   # free-ended segment
     en1993.annex_set("recommended" | "UK" | {...})              # partial factors and national choices
 

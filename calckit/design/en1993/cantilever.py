@@ -138,7 +138,7 @@ class OverhangModel:
     kept; :meth:`mcr` adds the section's stiffness.
     """
 
-    def __init__(self, Lo: float, Lb: float, mo: np.ndarray, mb: np.ndarray) -> None:
+    def __init__(self, Lo: float, Lb: float, mo: np.ndarray, mb: np.ndarray, scale: float | None = None) -> None:
         self.Lo, self.Lb, self.back = float(Lo), float(Lb), Lb > 0
         y, h, yg, over, s_o = _mesh(self.Lo, self.Lb)
         self.y = y
@@ -148,11 +148,13 @@ class OverhangModel:
         Mg[over] = mo[:ng]
         Mg[~over] = mb
         peak = float(np.max(np.abs(mo)))
-        if not peak > 0:
+        if scale is None and not peak > 0:
             raise InputError("moment_diagram: got zero moment over the cantilever; no lateral-torsional buckling")
         self.peak = peak
-        m = Mg / peak
-        M_tip = float(mo[-1]) / peak
+        self.mo = np.asarray(mo, dtype=float)  #: M at the overhang points (N m), as given
+        self.norm = peak if scale is None else float(scale)  #: the geometric matrices are per norm N m
+        m = Mg / self.norm
+        M_tip = float(mo[-1]) / self.norm
         Ne, D1e, D2e, wh = _element_fns(h)
         # element blocks (e, 4, 4) by quadrature
         Kb = np.einsum("eg,egi,egj->eij", wh, D2e, D2e)  # int N'' N''
@@ -185,13 +187,74 @@ class OverhangModel:
         else:  # the root twist rate is free for I_w = 0, where warping restraint has no meaning
             variants = {True: [0, 1, 2, 3], False: [0, 1, 2]}
         self._reduced = {}
+        self._split = {}
         for warp, fx in variants.items():
             keep = np.setdiff1d(np.arange(4 * nn), fx)
             ix = np.ix_(keep, keep)
             self._reduced[warp] = tuple(A[ix] for A in full)
+            self._split[warp] = (np.nonzero(keep % 4 < 2)[0], np.nonzero(keep % 4 >= 2)[0])  # u and phi DOFs
+        self._gup = {w: self._reduced[w][3][np.ix_(*self._split[w])] for w in self._reduced}  # u-phi block of G_c
+        self._last = self._terms = self._base = None
 
     def _matrices(self, warp: bool):
-        return self._reduced[warp if not self.back else True]
+        warp = warp if not self.back else True
+        mats = self._reduced.get(warp)
+        if mats is None:  # a combined model (:meth:`combine`): the geometric matrices summed now
+            base = self._base._matrices(warp)
+            G = [self._sum(lambda m, j=j: m._matrices(warp)[j], base[3]) for j in (3, 4, 5)]
+            mats = self._reduced[warp] = (base[0], base[1], base[2], *G)
+        return mats
+
+    def _gup_of(self, warp: bool) -> np.ndarray:
+        g = self._gup.get(warp)
+        if g is None:
+            if getattr(self, "_terms", None) is None:
+                g = self._reduced[warp][3][np.ix_(*self._split[warp])]
+            else:
+                g = self._sum(lambda m: m._gup_of(warp), self._base._gup_of(warp))
+            self._gup[warp] = g
+        return g
+
+    def _sum(self, get, like: np.ndarray) -> np.ndarray:
+        out = None
+        for a, m in self._terms:
+            out = a * get(m) if out is None else out + a * get(m)
+        return np.zeros_like(like) if out is None else out
+
+    @classmethod
+    def raw(cls, Lo: float, Mo, back=None) -> "OverhangModel":
+        """A model of the diagram as given (not normalised, not cached, zero allowed): a term for
+        :meth:`combine`. Arguments as for :func:`model`."""
+        Lo, Lb = float(Lo), 0.0 if back is None else float(back[0])
+        y, h, yg, over, s_o = _mesh(Lo, Lb)
+        mo = np.asarray(Mo(s_o), dtype=float)
+        mb = np.asarray(back[1](yg[~over]), dtype=float) if back is not None else np.empty(0)
+        if not (np.all(np.isfinite(mo)) and np.all(np.isfinite(mb))):
+            raise InputError("moment_diagram: the cantilever's moment diagram must give finite values")
+        return cls(Lo, Lb, mo, mb, scale=1.0)
+
+    @classmethod
+    def combine(cls, terms) -> "OverhangModel":
+        """The model of the diagram sum c_i M_i from models of the M_i on the same mesh (``terms``: pairs
+        (c_i, model_i)); exact, as the geometric matrices are linear in the diagram and the stiffness does
+        not depend on it. Normalised to the new peak |M| of the overhang, as :func:`model` does."""
+        terms = [(float(c), m) for c, m in terms]
+        m0 = terms[0][1]
+        for _, m in terms[1:]:
+            if (m.Lo, m.Lb) != (m0.Lo, m0.Lb):
+                raise InputError("OverhangModel.combine: the models have different lengths")
+        mo = sum(c * m.mo for c, m in terms)
+        peak = float(np.max(np.abs(mo)))
+        if not peak > 0:
+            raise InputError("moment_diagram: got zero moment over the cantilever; no lateral-torsional buckling")
+        new = cls.__new__(cls)
+        new.Lo, new.Lb, new.back, new.y = m0.Lo, m0.Lb, m0.back, m0.y
+        new.peak, new.mo, new.norm = peak, mo, peak
+        new._split, new._last = m0._split, None
+        new._reduced, new._gup = {}, {}
+        new._terms = [(c * m.norm / peak, m) for c, m in terms if c]  # the sums are formed when first needed
+        new._base = m0
+        return new
 
     def describe(self) -> str:
         if self.back:
@@ -204,31 +267,96 @@ class OverhangModel:
     def mcr(self, EIz: float, GIt: float, EIw: float, zg: float = 0.0, zj: float = 0.0) -> float:
         """Critical value (N m) of the overhang's largest |M| (all transverse loads at height ``zg`` above
         the shear centre, positive upwards; ``zj`` positive when the top flange is the larger)."""
-        Ku, Kt, Kw, Gc, G1, Gq = self._matrices(bool(EIw > 0) or self.back)
-        K = EIz * Ku + GIt * Kt
-        if EIw:
-            K += EIw * Kw
-        G = Gc
-        if zg or zj:
-            G = G + (zj + zg) * G1
-        if zg:
-            G = G + zg * Gq
-        # symmetric scaling first (the u and phi rows differ by orders of magnitude)
-        d = 1.0 / np.sqrt(np.diag(K))
-        K = K * d[:, None] * d[None, :]
-        G = G * d[:, None] * d[None, :]
-        try:
-            Lc = np.linalg.cholesky(K)
-        except np.linalg.LinAlgError:  # pragma: no cover - stiffness is positive definite for E I_z, G I_t > 0
-            raise InputError("section: the stiffness of the cantilever model is not positive definite "
-                             "(check E I_z, G I_t > 0)") from None
-        Li = np.linalg.inv(Lc)
-        S = Li @ G @ Li.T
-        ev = eigvalsh(0.5 * (S + S.T))
-        if not ev[0] < -1e-12:
+        key = (EIz, GIt, EIw, zg, zj)
+        if self._last is not None and self._last[0] == key:  # the same section asked again (search, then check)
+            return self._last[1]
+        warp = bool(EIw > 0) or self.back
+        if not (zg or zj):
+            val = self._mcr_split(warp, EIz, GIt, EIw)
+        else:
+            Ku, Kt, Kw, Gc, G1, Gq = self._matrices(warp)
+            G = Gc + (zj + zg) * G1
+            if zg:
+                G = G + zg * Gq
+            d, Li = _factor_stiffness(self.Lo, self.Lb, warp, Ku, Kt, Kw, EIz, GIt, EIw)
+            G = G * d[:, None] * d[None, :]
+            S = Li @ G @ Li.T
+            ev = eigvalsh(0.5 * (S + S.T))
+            if not ev[0] < -1e-12:
+                raise InputError("moment_diagram: no lateral-torsional buckling of the cantilever under this moment "
+                                 "diagram")
+            val = -1.0 / float(ev[0])
+        self._last = (key, val)
+        return val
+
+    def _mcr_split(self, warp, EIz, GIt, EIw) -> float:
+        """M_cr for z_g = z_j = 0: the stiffness is block diagonal (u | phi) and the geometric matrix only
+        couples u and phi, so the eigenvalues of the scaled problem are +- the singular values of the
+        scaled coupling block B and M_cr = 1 / sigma_max(B) (exactly the solution of the full problem)."""
+        iu, ip = self._split[warp]
+        root = self if self._base is None else self._base
+        du, Lu, dp, Lp = _factor_blocks(self.Lo, self.Lb, warp, root, EIz, GIt, EIw, iu, ip)
+        B = Lu @ (self._gup_of(warp) * du[:, None] * dp[None, :]) @ Lp.T
+        H = B.T @ B if B.shape[1] <= B.shape[0] else B @ B.T
+        smax = float(eigvalsh(0.5 * (H + H.T))[-1])
+        if not smax > 1e-24:
             raise InputError("moment_diagram: no lateral-torsional buckling of the cantilever under this moment "
                              "diagram")
-        return -1.0 / float(ev[0])
+        return 1.0 / math.sqrt(smax)
+
+
+_STIFF: dict = {}
+_STIFF_MAX = 16
+
+
+def _factor_stiffness(Lo, Lb, warp, Ku, Kt, Kw, EIz, GIt, EIw):
+    """(d, L^-1) of the stiffness E I_z K_u + G I_t K_t + E I_w K_w scaled symmetrically by d = diag^-1/2
+    (the u and phi rows differ by orders of magnitude), L its Cholesky factor. It depends on the mesh and
+    the section only, so it is kept for the few last (mesh, section) pairs: the diagrams of one segment
+    (every load arrangement) share it."""
+    key = (Lo, Lb, warp, EIz, GIt, EIw)
+    hit = _STIFF.get(key)
+    if hit is not None:
+        return hit
+    K = EIz * Ku + GIt * Kt
+    if EIw:
+        K = K + EIw * Kw
+    d = 1.0 / np.sqrt(np.diag(K))
+    K = K * d[:, None] * d[None, :]
+    try:
+        Lc = np.linalg.cholesky(K)
+    except np.linalg.LinAlgError:  # pragma: no cover - stiffness is positive definite for E I_z, G I_t > 0
+        raise InputError("section: the stiffness of the cantilever model is not positive definite "
+                         "(check E I_z, G I_t > 0)") from None
+    out = (d, np.linalg.inv(Lc))
+    if len(_STIFF) >= _STIFF_MAX:
+        _STIFF.clear()
+    _STIFF[key] = out
+    return out
+
+
+def _factor_blocks(Lo, Lb, warp, model, EIz, GIt, EIw, iu, ip):
+    """(d_u, L_u^-1, d_phi, L_phi^-1) of the u and phi blocks of the stiffness, scaled as in
+    :func:`_factor_stiffness` (kept for the last few mesh and section pairs)."""
+    key = ("split", Lo, Lb, warp, EIz, GIt, EIw)
+    hit = _STIFF.get(key)
+    if hit is not None:
+        return hit
+    Ku, Kt, Kw = model._matrices(warp)[:3]
+    out = []
+    for K in (EIz * Ku[np.ix_(iu, iu)], GIt * Kt[np.ix_(ip, ip)] + (EIw * Kw[np.ix_(ip, ip)] if EIw else 0.0)):
+        d = 1.0 / np.sqrt(np.diag(K))
+        K = K * d[:, None] * d[None, :]
+        try:
+            Lc = np.linalg.cholesky(K)
+        except np.linalg.LinAlgError:  # pragma: no cover - positive definite for E I_z, G I_t > 0
+            raise InputError("section: the stiffness of the cantilever model is not positive definite "
+                             "(check E I_z, G I_t > 0)") from None
+        out += [d, np.linalg.inv(Lc)]
+    if len(_STIFF) >= _STIFF_MAX:
+        _STIFF.clear()
+    _STIFF[key] = tuple(out)
+    return _STIFF[key]
 
 
 def gamma_cr(Mcr: float, L: float, EIz: float, GIt: float) -> float:

@@ -110,19 +110,36 @@ def chi_lt(lam: float, curve: str = "b", method: str = "general", lambda_0: floa
 class Diagram:
     """A segment's moment diagram: M(xi) on xi = x/L in [0, 1] (N m, sagging positive) and its peak."""
 
-    __slots__ = ("fn", "Mmax", "M_peak_signed", "scaled", "label", "shapes")
+    __slots__ = ("fn", "Mmax", "M_peak_signed", "scaled", "label", "shapes", "kc", "last")
 
     def __init__(self, fn, Mmax: float, M_peak_signed: float, scaled: bool, label: str) -> None:
         self.fn, self.Mmax, self.M_peak_signed, self.scaled, self.label = fn, Mmax, M_peak_signed, scaled, label
         self.shapes: dict = {}  #: (k, k_w) -> energy Shape of this diagram (kept for reuse across sections)
+        self.kc = None  #: Table 6.6 match (k_c, case, psi) of this diagram, found once (:func:`kc_table66`)
+        self.last = None  #: (arguments, Factors) of the last :meth:`factors` call
 
     def factors(self, L: float, EIz: float, GIt: float, EIw: float, zg: float = 0.0, zj: float = 0.0,
                 k: float = 1.0, kw: float = 1.0):
-        """C1, C2, C3 of this diagram (:func:`.mcr.equivalent_factors`, with the diagram's Shape kept)."""
+        """C1, C2, C3 of this diagram (:func:`.mcr.equivalent_factors`, with the diagram's Shape kept; the
+        last result is kept too, for a search that ranks the diagrams of a segment before checking)."""
+        key = (L, EIz, GIt, EIw, zg, zj, k, kw)
+        if self.last is not None and self.last[0] == key:
+            return self.last[1]
+        fa = self._shape(k, kw).factors(L, EIz, GIt, EIw, zg, zj, k, kw)
+        self.last = (key, fa)
+        return fa
+
+    def mcr_energy(self, L: float, EIz: float, GIt: float, EIw: float, zg: float = 0.0, zj: float = 0.0,
+                   k: float = 1.0, kw: float = 1.0) -> float:
+        """M_cr of the energy solution alone (the Factors' ``Mcr_energy``, one eigenproblem): for ranking
+        the diagrams of a segment before checking them."""
+        return self._shape(k, kw).mcr(L, EIz, GIt, EIw, zg, zj)
+
+    def _shape(self, k: float, kw: float):
         sh = self.shapes.get((k, kw))
         if sh is None:
             sh = self.shapes[(k, kw)] = shape(self.fn, k, kw, self.Mmax)[0]
-        return sh.factors(L, EIz, GIt, EIw, zg, zj, k, kw)
+        return sh
 
 
 def _arr(v, dim: str, name: str) -> np.ndarray:
@@ -342,7 +359,9 @@ def ltb_si(s, mat: Material, annex: AnnexSet, *, L: float, C1=None, C2=None, C3=
             kc = calc(F_KC_C1, C_1=C1)
             case = "k_c = 1/sqrt(C1)"
         elif dia is not None:
-            kc, case, psi = kc_table66(dia.fn)
+            if dia.kc is None:
+                dia.kc = kc_table66(dia.fn)
+            kc, case, psi = dia.kc
             if psi is not None:
                 kc = calc(F_KC_LIN, psi=psi)
             elif kc is not None:

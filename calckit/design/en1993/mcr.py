@@ -46,7 +46,7 @@ import numpy as np
 
 from ...errors import InputError, NotCoveredError
 
-__all__ = ["mcr_formula", "mcr_energy", "equivalent_factors", "Factors", "Shape", "shape", "z_j",
+__all__ = ["mcr_formula", "mcr_energy", "equivalent_factors", "Factors", "Shape", "shape", "raw_shape", "z_j",
            "standard_diagram", "SN003_TABLE"]
 
 N_TERMS = 8  #: series terms for u and for phi
@@ -223,7 +223,7 @@ class Shape:
     scaled block); with z_g or z_j the 2N problem is assembled from the cached blocks.
     """
 
-    __slots__ = ("fix_u", "fix_phi", "mu", "C0", "CtC", "P1", "Qs")
+    __slots__ = ("fix_u", "fix_phi", "mu", "C0", "CtC", "P1", "Qs", "_terms")
 
     def __init__(self, fix_u: bool, fix_phi: bool, m_over_peak: np.ndarray) -> None:
         xi, w, u2, p, p1, p2, mu = _basis(fix_u, fix_phi)
@@ -234,6 +234,7 @@ class Shape:
         self.P1 = (p1 * wm[:, None]).T @ p1  # int m phi' phi' dxi
         q = (p * wm[:, None]).T @ p2  # int m phi phi'' dxi
         self.Qs = q + q.T
+        self._terms = None
 
     def mcr(self, L: float, EIz: float, GIt: float, EIw: float, zg: float = 0.0, zj: float = 0.0) -> float:
         """Critical peak moment (N m) of the segment, as :func:`mcr_energy`."""
@@ -245,6 +246,9 @@ class Shape:
             if not sigma > 1e-14:
                 raise InputError("moment_diagram: no lateral-torsional buckling under this moment diagram")
             return 1.0 / sigma
+        if self.P1 is None:  # a combined Shape: the load-height and mono-symmetry blocks summed when first needed
+            self.P1 = sum(c * sh.P1 for c, sh in self._terms)
+            self.Qs = sum(c * sh.Qs for c, sh in self._terms)
         n = N_TERMS
         r = np.empty(2 * n)
         r[:n] = math.sqrt(L ** 3 / EIz)
@@ -267,6 +271,26 @@ class Shape:
         """C1, C2, C3 as :func:`equivalent_factors` (k, k_w must be those the shape was built for)."""
         return _factors(lambda g, j: self.mcr(L, EIz, GIt, EIw, g, j), L, EIz, GIt, EIw, zg, zj, k, kw)
 
+    @classmethod
+    def combine(cls, terms) -> "Shape":
+        """The Shape of the diagram sum c_i m_i from the Shapes of the m_i (same end conditions): every
+        block is linear in the diagram, so this is exact (``terms``: pairs (c_i, Shape_i)). Used by the
+        section search to add each candidate's self-weight to a diagram without rebuilding it."""
+        terms = [(float(c), sh) for c, sh in terms]
+        c0, s0 = terms[0]
+        new = cls.__new__(cls)
+        new.fix_u, new.fix_phi, new.mu = s0.fix_u, s0.fix_phi, s0.mu
+        C0 = c0 * s0.C0
+        for c, sh in terms[1:]:
+            if (sh.fix_u, sh.fix_phi) != (s0.fix_u, s0.fix_phi):
+                raise InputError("Shape.combine: the shapes have different end conditions (k, k_w)")
+            if c:
+                C0 = C0 + c * sh.C0
+        new.C0, new.CtC = C0, C0.T @ C0
+        new.P1 = new.Qs = None  # summed in mcr() only if z_g or z_j needs them
+        new._terms = [(c, sh) for c, sh in terms if c]
+        return new
+
 
 _SHAPES: dict = {}
 _SHAPES_MAX = 256
@@ -287,6 +311,17 @@ def shape(M, k: float = 1.0, kw: float = 1.0, Mmax: float | None = None) -> tupl
             _SHAPES.clear()
         sh = _SHAPES[key] = Shape(fu, fp, mn)
     return sh, mmax
+
+
+def raw_shape(M, k: float = 1.0, kw: float = 1.0) -> Shape:
+    """The :class:`Shape` of the diagram ``M`` (callable on xi = x/L, N m) as given, not normalised to
+    its peak and not cached: a term for :meth:`Shape.combine` (a zero diagram is allowed)."""
+    fu, fp = _restraint(k, "k"), _restraint(kw, "k_w")
+    xi = _basis(fu, fp)[0]
+    m = np.asarray(M(xi) if callable(M) else M, dtype=float)
+    if m.shape != xi.shape or not np.all(np.isfinite(m)):
+        raise InputError("moment_diagram: expected finite moments at the quadrature points")
+    return Shape(fu, fp, m)
 
 
 def _factors(solve, L, EIz, GIt, EIw, zg, zj, k, kw) -> Factors:

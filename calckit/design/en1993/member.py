@@ -8,12 +8,27 @@ diagram and M_Ed (6.3.2), and of an overhang beyond the first or last restraint 
 method of :mod:`.cantilever`), transverse forces at loads and supports (EN 1993-1-5 6) with the 7.2
 interaction, and deflection per serviceability combination (7.2).
 
-Inputs are plain arrays (SI) or analysis objects: ``x`` stations (m), ``M`` (N m, sagging positive) and
-``V`` (N) arrays of one combination, or ``(max, min)`` pairs of envelope arrays; or ``analysis=`` a
-:class:`calckit.analysis.BeamResult` (one combination) or :class:`calckit.analysis.Envelope`; or
-``demands=`` a :class:`.demands.Demands` prepared once by :func:`.demands.demands` for a section search.
+Inputs are plain arrays (SI) or analysis objects (see :mod:`.demands`). Recommended: ``analysis=`` the
+real diagram of every combination and pattern arrangement, a dict (or list) of
+:class:`calckit.analysis.BeamResult` such as ``calckit.analysis.arrangements(solution, combinations)``
+(or ``M=``/``V=`` dicts of arrays): bending and shear then take the worst at each station, and each LTB
+segment is checked under every diagram with its own C1 and M_Ed, the governing one reported with its
+combination name. Also accepted: one BeamResult or ``x``/``M``/``V`` arrays (one loading); an
+:class:`calckit.analysis.Envelope` or ``(max, min)`` array pairs, whose LTB uses an envelope curve as the
+moment diagram (approximate, noted); or ``demands=`` prepared once by :func:`.demands.demands`.
+
+Several diagrams per segment: they are taken in order of decreasing peak moment, and a diagram that
+cannot give a larger ratio than one already evaluated is not evaluated in full (:func:`_governing`):
+its peak over M_b,Rd of a uniform moment (C1 = 1, the lowest critical moment of a doubly symmetric
+segment between forks with the load at the shear centre, used only then) does not exceed the worst
+ratio, or - without the f modification of 6.3.2.3(2) - a bound from an evaluated diagram of the same
+sign and its own energy M_cr shows it cannot. A segment whose diagrams are those of a segment already
+checked (directly or mirrored: the halves of a symmetric span) takes that result, moved to its place.
 """
 from __future__ import annotations
+
+import math
+from dataclasses import replace
 
 import numpy as np
 
@@ -30,6 +45,7 @@ from .classify import classify_si
 from .deflection import deflection
 from .demands import Demands, Force, _si, demands as make_demands, from_analysis
 from .factors import annex_set
+from .mcr import z_j
 from .shear import _result as _shear_result, shear_si
 
 __all__ = ["check_member", "Force", "from_analysis"]
@@ -45,6 +61,12 @@ def check_member(section, steel, *, x=None, M=None, V=None, analysis=None, restr
                  overhang_root: str = "continuous") -> MemberResult:
     """Check an I-beam along its length (see the module docstring).
 
+    ``analysis``: recommended, the real moment diagram of every load arrangement, a dict or list of
+    BeamResults (``calckit.analysis.arrangements(solution, combinations)``); each LTB segment is then
+    checked under every diagram with its own C1/C2 and M_Ed, and the governing diagram's name is in the
+    check's ``combination``. One BeamResult (one loading) is accepted. An Envelope still works, but its
+    LTB takes C1 from an envelope curve (approximate; noted). With arrays: ``M``/``V`` one array each, a
+    dict {name: array} per diagram, or (max, min) envelope pairs.
     ``restraints``: positions (m) of lateral-torsional restraints, default the two ends (for a BeamResult
     with a free end: the nearest support that is not free instead of that end); "continuous" for a fully
     restrained compression flange (no LTB check). A part of the member beyond the first or last
@@ -78,6 +100,7 @@ def check_member(section, steel, *, x=None, M=None, V=None, analysis=None, restr
                              "(those values are part of them)")
         D = demands
     combination = combination or D.combination
+    name_of = D.name_of
     a_ = _si(a, "length", "a", positive=True, allow_none=True)
     calc = Calc(steps)
     if steps:
@@ -95,7 +118,7 @@ def check_member(section, steel, *, x=None, M=None, V=None, analysis=None, restr
     sh = shear_si(s, mat, ann, a=a_, end_post=end_post, flange_contribution=flange_contribution, M_Ed=D.M_at_v,
                   calc=sc)
     checks.append(_shear_result(sh, s, mat, ann, float(Vabs[iv]), sc, location=float(xa[iv]),
-                                combination=combination))
+                                combination=name_of(D.V_by, iv, combination)))
     # -- bending with coexisting shear ---------------------------------------------------------------
     Mc = {}
     for sag, cl in cls.items():
@@ -105,11 +128,7 @@ def check_member(section, steel, *, x=None, M=None, V=None, analysis=None, restr
         limit = sh.V_bw_Rd * 0.5 if sh.buckling else 0.5 * sh.V_pl_Rd
         high = np.nonzero(Vabs > limit)[0]
         if high.size:
-            ratios = np.clip(Marr, 0, None) / base.M_c_Rd
-            for j in high:
-                r = _bend.bending_si(s, mat, ann, sagging=sag, V_Ed=float(Vabs[j]), cl=cl, sh=sh)
-                ratios[j] = max(Marr[j], 0.0) / r.M_Rd
-            j = int(np.argmax(ratios))
+            j = _worst_with_shear(s, mat, ann, sag, cl, sh, base.M_c_Rd, Marr, Vabs, high)
         else:  # no coexisting-shear reduction anywhere: the largest moment governs
             j = int(np.argmax(Marr))
         if Marr[j] <= 0:
@@ -120,18 +139,27 @@ def check_member(section, steel, *, x=None, M=None, V=None, analysis=None, restr
             r = base
         else:
             r = _bend.bending_si(s, mat, ann, sagging=sag, V_Ed=Vj, cl=cl, sh=sh if not steps else None, calc=bc)
-        res = _bend.result(r, mat, ann, float(Marr[j]), bc, location=float(xa[j]), combination=combination)
+        res = _bend.result(r, mat, ann, float(Marr[j]), bc, location=float(xa[j]),
+                           combination=name_of(D.M_max_by if sag else D.M_min_by, j, combination))
         checks.append(res)
     # -- lateral-torsional buckling per segment ------------------------------------------------------
     if not D.continuous:
+        groups: dict = {}
         for sg in D.segments:
-            checks.append(_segment(s, mat, ann, sg, D, method, use_f, steps, cls, combination))
+            groups.setdefault((sg.a, sg.b, sg.kind), []).append(sg)
+        done: list = []  # (segments, result) of the groups checked, for mirror images (numeric path)
+        for sgs in groups.values():
+            r = None if steps else _mirrored(sgs, done)
+            if r is None:
+                r = _governing(s, mat, ann, sgs, D, method, use_f, steps, cls, combination)
+                done.append((sgs, r))
+            checks.append(r)
     # -- transverse forces ---------------------------------------------------------------------------
     for fd in D.forces:
         f = fd.force
         tc = Calc(steps)
         d = _tr.transverse_si(s, mat, ann, ss=f.ss, load_type=f.load_type, c=f.c, a=a_, flange=f.flange, calc=tc)
-        tres = _tr.result(d, tc, fd.F, location=f.x, combination=combination)
+        tres = _tr.result(d, tc, fd.F, location=f.x, combination=fd.combination or combination)
         checks.append(tres)
         McR = Mc.get(fd.sagging) or next(iter(Mc.values()), None)
         if McR and fd.M > 0:
@@ -148,9 +176,139 @@ def check_member(section, steel, *, x=None, M=None, V=None, analysis=None, restr
                         section=s.name, steel=mat.grade, notes=tuple(notes) + D.notes, steps=calc.take())
 
 
+def _worst_with_shear(s, mat, ann, sag, cl, sh, Mc, Marr, Vabs, high) -> int:
+    """Station of the largest M_Ed / M_Rd, the stations in ``high`` with the resistance reduced by their
+    shear (6.2.8 / EN 1993-1-5 7.1), the others with M_c,Rd. M_V,Rd does not increase with V_Ed, so
+    M_Ed / M_V,Rd(V_max of those stations) bounds each high-shear station's ratio from above: they are
+    evaluated in order of that bound until it cannot beat the worst ratio found."""
+    ratios = np.clip(Marr, 0, None) / Mc
+    low = np.ones(Marr.size, dtype=bool)
+    low[high] = False
+    best_j = int(np.argmax(np.where(low, ratios, -1.0))) if low.any() else -1
+    best = float(ratios[best_j]) if best_j >= 0 else -math.inf
+    live = high[Marr[high] > 0]
+    if not live.size:
+        return best_j if best_j >= 0 else int(np.argmax(Marr))
+    r_min = _bend.bending_si(s, mat, ann, sagging=sag, V_Ed=float(Vabs[live].max()), cl=cl, sh=sh).M_Rd
+    up = Marr[live] / r_min if r_min > 0 else np.full(live.size, math.inf)
+    for i in np.argsort(-up, kind="stable"):
+        j = int(live[i])
+        if up[i] < best:
+            break
+        r = _bend.bending_si(s, mat, ann, sagging=sag, V_Ed=float(Vabs[j]), cl=cl, sh=sh)
+        rj = Marr[j] / r.M_Rd if r.M_Rd > 0 else math.inf
+        if rj > best or (rj == best and j < best_j):
+            best, best_j = rj, j
+    return best_j
+
+
 def _segment(s, mat, ann, sg, D, method, use_f, steps, cls, combination):
     calc = Calc(steps)
     cl = cls.get(sg.sagging) or classify_si(s, mat, sagging=sg.sagging)
     d = _ltb.ltb_si(s, mat, ann, L=sg.L, dia=sg.diagram, zg=D.zg, k=D.k, kw=D.kw, method=method, use_f=use_f,
                     sagging=sg.sagging, calc=calc, cl=cl, cantilever=sg.model)
-    return _ltb.result(d, calc, sg.peak, segment=(sg.a, sg.b), location=sg.location, combination=combination)
+    if sg.envelope:
+        d["notes"] = d["notes"] + ("C1 from an envelope curve, not one loading's moment diagram (approximate)",)
+    return _ltb.result(d, calc, sg.peak, segment=(sg.a, sg.b), location=sg.location,
+                       combination=sg.combination or combination)
+
+
+_Q33 = np.linspace(0.0, 1.0, 33)
+_SAME = 1e-9  #: relative tolerance of "the same segment" (diagram values, peak, length)
+
+
+def _signature(sg) -> np.ndarray:
+    return np.asarray(sg.diagram.fn(_Q33), dtype=float) / sg.diagram.Mmax
+
+
+def _mirrored(sgs, done):
+    """The result of an earlier segment whose diagrams are the same as these - each diagram matched to
+    one with the same peak, sign and normalised shape, directly or mirrored end to end (e.g. the two
+    halves of a symmetric span, or the spans of a symmetric continuous beam under mirrored load
+    arrangements) - with this segment's position and the matching diagram's name; None otherwise.
+    Only between restraints (forks)."""
+    if sgs[0].kind != "forks":
+        return None
+    mine = None
+    for prev, res in done:
+        if prev[0].kind != "forks" or len(prev) != len(sgs) or abs(prev[0].L - sgs[0].L) > _SAME * sgs[0].L:
+            continue
+        if mine is None:
+            mine = [_signature(b) for b in sgs]
+        theirs = [_signature(a) for a in prev]
+        for flip in (False, True):
+            match: dict = {}
+            for i, a in enumerate(prev):
+                for j, b in enumerate(sgs):
+                    if j in match.values() or a.sagging != b.sagging or abs(a.peak - b.peak) > _SAME * a.peak:
+                        continue
+                    if np.max(np.abs(theirs[i] - (mine[j][::-1] if flip else mine[j]))) <= _SAME:
+                        match[i] = j
+                        break
+                else:
+                    break
+            if len(match) != len(prev):
+                continue
+            gi = next((i for i, a in enumerate(prev) if a.combination == res.combination), None)
+            if gi is None:
+                continue
+            g = sgs[0]
+            loc = res.location
+            if loc is not None:
+                loc = g.a + (prev[0].b - loc if flip else loc - prev[0].a)
+            return replace(res, segment=(g.a, g.b), location=loc, combination=sgs[match[gi]].combination)
+    return None
+
+
+def _governing(s, mat, ann, sgs, D, method, use_f, steps, cls, combination):
+    """The LTB check of one segment under the diagram with the largest ratio (module docstring).
+
+    Diagrams in order of decreasing peak P; one is not evaluated in full when it cannot give a larger
+    ratio than the worst found: (1) P / M_b,Rd of a uniform moment does not exceed it (z_g = 0, doubly
+    symmetric section, between restraints: C1 >= 1); (2) without the f modification of 6.3.2.3(2), so
+    that M_b,Rd depends on M_cr alone: with an evaluated diagram j of the same sign (ratio r_j, peak P_j,
+    M_cr,j), r_j (P / P_j) max(1, M_cr,j / M_cr) does not exceed it - M_b,Rd does not decrease with M_cr,
+    and M_b,Rd / M_cr (chi_LT lambda_LT^2) does not decrease with lambda_LT for any curve, so M_b,Rd >=
+    M_b,Rd,j M_cr / M_cr,j for M_cr < M_cr,j (tests/test_en1993_member_diagrams.py checks both rules)."""
+    if len(sgs) == 1:
+        return _segment(s, mat, ann, sgs[0], D, method, use_f, steps, cls, combination)
+    forks = sgs[0].kind == "forks"
+    uniform_ok = forks and D.zg == 0 and s.symmetric
+    f_dep = forks and (method or ann.ltb_method) == "rolled" and (ann.ltb_f if use_f is None else bool(use_f))
+    EIz, GIt, EIw, zj = mat.E * s.Iy, mat.G * s.J, mat.E * s.Cw, z_j(s)
+    bound: dict = {}
+    seen: list = []  # (sagging, peak, M_cr, ratio) of the diagrams evaluated
+    worst = wsg = None
+    n_eval = 0
+    for sg in sorted(sgs, key=lambda g: -g.peak):
+        if worst is not None:
+            if uniform_ok:
+                Mb1 = bound.get(sg.sagging)
+                if Mb1 is None:
+                    cl = cls.get(sg.sagging) or classify_si(s, mat, sagging=sg.sagging)
+                    Mb1 = bound[sg.sagging] = _ltb.ltb_si(s, mat, ann, L=sg.L, C1=1.0, zg=0.0, k=D.k, kw=D.kw,
+                                                           method=method, use_f=use_f, sagging=sg.sagging,
+                                                           cl=cl)["M_b_Rd"]
+                if sg.peak <= worst.ratio * Mb1:
+                    continue
+            same = [t for t in seen if t[0] == sg.sagging]
+            if not f_dep and same:
+                if sg.model is not None:
+                    mcr = sg.model.mcr(EIz, GIt, EIw, zg=D.zg, zj=zj)
+                else:
+                    mcr = sg.diagram.mcr_energy(sg.L, EIz, GIt, EIw, zg=D.zg, zj=zj, k=D.k, kw=D.kw)
+                lim = min(r * (sg.peak / p) * max(1.0, m / mcr) for _, p, m, r in same)
+                if lim <= worst.ratio * (1.0 - 1e-9):
+                    continue
+        r = _segment(s, mat, ann, sg, D, method, use_f, False, cls, combination)
+        n_eval += 1
+        seen.append((sg.sagging, sg.peak, r.Mcr, r.ratio))
+        if worst is None or r.ratio > worst.ratio:
+            worst, wsg = r, sg
+    if steps:  # the governing diagram again, with its calc-sheet steps
+        worst = _segment(s, mat, ann, wsg, D, method, use_f, True, cls, combination)
+        worst = replace(worst, note="; ".join(t for t in (worst.note, f"governing of {len(sgs)} moment diagrams "
+                                                          f"(load arrangements) of this segment") if t))
+    worst.data["diagrams"] = len(sgs)
+    worst.data["diagrams_evaluated"] = n_eval
+    return worst
