@@ -120,15 +120,15 @@ def diagrams(sheet) -> dict:
 def member_checks(sheet, a=None) -> list:
     """Design CheckResults of a beam or girder sheet from the design engine of its standard.
 
-    EN 1993-1-1: :func:`calckit.design.en1993.check_member` with the strength envelope, the lateral
-    restraints and the stiffener spacing ``a``. AISC 360-22: its member check on the real diagram of every
+    EN 1993-1-1: :func:`calckit.design.en1993.check_member` on the real diagram of every combination and
+    arrangement (:func:`diagrams`), with the lateral restraints and the stiffener spacing ``a``. AISC 360-22: its member check on the real diagram of every
     combination and arrangement (:func:`diagrams`), else the provisional set of :func:`_provisional`.
     """
     if not sheet.aisc:
         from ..design.en1993 import check_member
 
         restraints = "continuous" if not sheet.braces else sheet.braces
-        res = check_member(sheet.section, sheet.steel, analysis=sheet.env, restraints=restraints, a=a)
+        res = check_member(sheet.section, sheet.steel, analysis=diagrams(sheet), restraints=restraints, a=a)
         return list(res.checks)
     cm = _aisc_member_check()
     if cm is not None:
