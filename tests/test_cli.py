@@ -74,3 +74,14 @@ def test_demo_command_exits_0_when_the_failure_is_expected(tmp_path, monkeypatch
     text = capsys.readouterr().out
     assert "F-1 fails on purpose" in text
     assert list(out.glob("*/F-1/steel_beam-r1.html")) and list(out.glob("*/batch-01-summary.html"))
+
+
+def test_pick_command_takes_a_calc_parameter_file(capsys):
+    # `calckit pick FILE` accepts the steel beam calc's own file (calc/member/section keys included)
+    from calckit.cli import main
+
+    root = Path(__file__).resolve().parent.parent
+    assert main(["pick", str(root / "parameters" / "B-101.yaml")]) == 0
+    out = capsys.readouterr().out
+    assert "chosen: W" in out and "governing" in out
+    assert main(["pick", str(root / "parameters" / "TG-201.yaml")]) == 2  # a girder file: not a beam search

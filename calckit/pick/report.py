@@ -35,7 +35,7 @@ CAUTION = ("Design aid only: the section chosen must be reviewed, and the calcul
 SEARCH_KEYS = ("families", "depth", "mass", "n_best")
 #: keys of the steel beam calc that the search does not use (accepted and ignored)
 _IGNORED = ("section", "member", "description", "job", "project", "client", "designer", "units", "headless",
-            "revision", "run_date")
+            "revision", "run_date", "expect")
 _LB_FT = 0.45359237 / 0.3048  # kg/m per lb/ft
 _IN = 0.0254
 
@@ -207,6 +207,10 @@ def _read(path: str) -> tuple[dict, dict]:
     if not isinstance(data, dict):
         raise InputError(f"{path}: got {type(data).__name__}; expected a mapping of parameter: value")
     search = {k: data.pop(k) for k in SEARCH_KEYS if k in data}
+    calc = data.pop("calc", "steel_beam")  # a steel beam calc's own parameter file is accepted as it is
+    if calc != "steel_beam":
+        raise InputError(f"{path}: calc: got {calc!r}; expected 'steel_beam' (calckit pick searches rolled "
+                         f"sections for steel beam members)")
     from .member import PARAM_KEYS
 
     unknown = sorted(k for k in data if k not in PARAM_KEYS and k not in _IGNORED)
