@@ -56,7 +56,10 @@ render as HTML tables with TeX math for JupyterLab; ``Summary`` also writes the 
 results payload (mime type ``application/vnd.calckit.results+json``; read it back with
 ``read_results(path)``). ``export_html(nb, out_path)`` writes a self-contained archive HTML (TeX
 converted to MathML, no CDN scripts). Display units: ``set_display(system="US")`` or per block
-``system="US"``. See docs/rendering.md.
+``system="US"``. A step too wide for the calculation column is set as aligned rows (symbolic
+form, then the substituted form broken at ``=``, ``+``/``-``, commas or between factors, then the
+result); numbers >= 1e6 or < 1e-3 are written in engineering notation (``35.7 x 10^6``). See
+docs/rendering.md.
 
 A design aid only: results must be reviewed, and the calculation sealed, by a licensed or chartered
 engineer; local codes, national annexes and project specifications govern.

@@ -6,7 +6,10 @@ Rounding rules (common practice for hand calculations):
 * ratios (dimension ``"ratio"``): 2 decimal places (``decimals``);
 * inputs in a substituted form: 4 significant figures, trailing zeros dropped (``50``, ``17.99``), so
   that the numbers shown reproduce the result to its displayed precision;
-* numbers of magnitude >= 1e6 or < 1e-3 are written as ``m x 10^n``.
+* numbers of magnitude >= 1e6 or < 1e-3 are written in engineering notation, ``m x 10^n`` with ``n`` a
+  multiple of 3 and 1 <= m < 1000 (``35.7 x 10^6``, ``26.8 x 10^9``, ``26.2 x 10^-6``), so the exponent
+  matches the unit multiples engineers read (kilo, mega, giga) and neighbouring values compare at a
+  glance; the mantissa keeps the significant figures.
 
 Display units come from :func:`calckit.units.display_unit`; conversion factors are cached per
 ``(dim, unit)`` so formatting does not call pint for every number.
@@ -92,11 +95,12 @@ def _fixed(x: float, sig: int | None, decimals: int | None, trim: bool) -> tuple
     a = abs(r)
     exp = math.floor(math.log10(a))
     if a >= _SCI_HI or a < _SCI_LO:
-        m = r / 10.0 ** exp
-        s = f"{m:.{sig - 1}f}"
+        exp3 = 3 * (exp // 3)                      # engineering notation: exponent a multiple of 3
+        m = r / 10.0 ** exp3
+        s = f"{m:.{max(sig - 1 - (exp - exp3), 0)}f}"
         if trim and "." in s:
             s = s.rstrip("0").rstrip(".")
-        return s, exp
+        return s, exp3
     nd = sig - 1 - exp
     if nd > 0:
         s = f"{r:.{nd}f}"
