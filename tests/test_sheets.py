@@ -49,3 +49,22 @@ def test_ltb_uses_real_diagrams():
     s = _sheet("B-103.yaml")
     d = diagrams(s)
     assert len(d) >= len(s.strength) and all(hasattr(r, "M_si") for r in d.values())
+
+
+def test_compact_repeats_shows_each_derivation_once():
+    """Girder panels of equal width have equal capacity: the derivation is shown once, later panels keep
+    their own demand and ratio with a pointer to it (a calc-sheet convention, common practice)."""
+    from calckit.design.results import CheckResult
+    from calckit.sheets.design import compact_repeats
+
+    step = object()
+    a = CheckResult("Shear", "AISC 360-22 G2.2", "force", capacity=400e3, nominal=450e3, demand=100e3, ratio=0.25,
+                    passed=True, location=1.5, steps=(step,))
+    b = CheckResult("Shear", "AISC 360-22 G2.2", "force", capacity=400e3, nominal=450e3, demand=200e3, ratio=0.5,
+                    passed=True, location=3.0, steps=(step,))
+    c = CheckResult("Shear", "AISC 360-22 G2.2", "force", capacity=380e3, nominal=420e3, demand=200e3,
+                    ratio=200 / 380, passed=True, location=4.5, steps=(step,))
+    out = compact_repeats([a, b, c], "SI")
+    assert out[0] is a and out[2] is c  # first of its kind and a different capacity keep their steps
+    assert out[1].steps == () and out[1].ratio == 0.5 and out[1].demand == 200e3
+    assert "capacity derived above (the panel at x = 1.5" in out[1].note

@@ -60,6 +60,8 @@ class BeamSheet(CalcSheet):
                                    kinds=[s.kind for s in self.beam.layout.supports])
         self.register_parts()
 
+    deflection_number = "6"  #: section number of the deflection part (the girder sheet has more parts)
+
     def register_parts(self):
         for name, fn in (("loads", self._loads), ("analysis", self._analysis), ("section", self._section),
                          ("stress", self._stress), ("checks", self._checks), ("deflection", self._deflection),
@@ -221,16 +223,32 @@ class BeamSheet(CalcSheet):
         from ..render import Section, given
 
         s = self.section.si
-        ref = f"{self.section.name} (calckit.sections)"
-        rows = [("d", "d", "length"), ("b_f", "bf_top", "length"), ("t_f", "tf_top", "length"),
-                ("t_w", "tw", "length"), ("A", "A", "area"), ("I_x", "Ix", "inertia"), ("S_x", "Sx", "modulus"),
-                ("Z_x", "Zx", "modulus"), ("I_y", "Iy", "inertia"), ("r_y", "ry", "length"), ("J", "J", "inertia"),
-                ("C_w", "Cw", "warping"), ("h_o", "ho", "length"), ("m", "mass", "mass_per_length")]
-        recs = [given(sym, getattr(s, f), dim, reference=ref) for sym, f, dim in rows]
+        sec = self.section
+        family = getattr(sec, "family", "")
+        if family:
+            dims = "EN 10365 (catalog)" if family in ("IPE", "HEA", "HEB") else "ASTM A6 (catalog)"
+            ref_dim = f"{sec.name} dimensions, {dims}"
+            ref_prop = f"{sec.name}: computed from the dimensions, root fillets included"
+        else:
+            ref_dim = ref_prop = f"{sec.name} (given dimensions)"
+        rows = [("d", "d", "length", "overall depth"), ("b_f", "bf_top", "length", "flange width"),
+                ("t_f", "tf_top", "length", "flange thickness"), ("t_w", "tw", "length", "web thickness"),
+                ("A", "A", "area", "area"), ("I_x", "Ix", "inertia", "second moment of area, major axis"),
+                ("S_x", "Sx", "modulus", "elastic section modulus, major axis"),
+                ("Z_x", "Zx", "modulus", "plastic section modulus, major axis"),
+                ("I_y", "Iy", "inertia", "second moment of area, minor axis"),
+                ("r_y", "ry", "length", "radius of gyration, minor axis"),
+                ("J", "J", "inertia", "St Venant torsion constant"), ("C_w", "Cw", "warping", "warping constant"),
+                ("h_o", "ho", "length", "distance between flange centroids"),
+                ("m", "mass", "mass_per_length", "mass per length (steel 7850 kg/m3)")]
+        recs = [given(sym, getattr(s, f), dim, reference=ref_dim if i < 4 else ref_prop, label=label)
+                for i, (sym, f, dim, label) in enumerate(rows)]
         st = self.steel
         recs += [given("F_y" if self.aisc else "f_y", st.si.fy, "stress", reference=st.source or st.name,
                        label=f"{st.name}, thinnest band"),
-                 given("E", st.si.E, "stress", reference=st.source or st.name)]
+                 given("E", st.si.E, "stress",
+                       reference=("AISC 360-22, Symbols: E = 29,000 ksi" if st.standard == "ASTM"
+                                  else "EN 1993-1-1:2005 3.2.6(1)"))]
         blocks = [Section(f"Section {self.section.name}, steel {st.name}", recs, number="3", system=self.system)]
         sel = getattr(self, "selection", None)
         if sel is not None and sel.picked:
@@ -288,7 +306,8 @@ class BeamSheet(CalcSheet):
 
         intro = ("Service combinations: " + "; ".join(f"{k}: " + ", ".join(c.name for c in cs)
                                                      for k, cs in self.service.items()) + ".")
-        return [Section("Deflection (service loads)", self.deflection_checks(), number="6", intro=intro,
+        return [Section("Deflection (service loads)", self.deflection_checks(), number=self.deflection_number,
+                        intro=intro,
                         system=self.system)]
 
     def all_checks(self) -> list:

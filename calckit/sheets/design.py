@@ -65,6 +65,37 @@ def to_render(cr, system: str = "SI") -> Any:
                  note=note)
 
 
+def compact_repeats(results, system: str = "SI", what: str = "panel") -> list:
+    """Design results with the derivation shown once: a result whose limit state, clause and capacity
+    equal an earlier one's keeps only its demand-versus-capacity line, with a note saying where its
+    capacity was derived (e.g. the interior stiffener panels of a girder, all of the same width a)."""
+    from dataclasses import replace
+
+    from ..units import fmt
+
+    seen: dict = {}
+    out = []
+    for r in results:
+        cap = float(r.capacity)
+        nom = None if r.nominal is None else float(f"{float(r.nominal):.9g}")
+        key = (r.limit_state, r.clause, r.dim, float(f"{cap:.9g}"), nom)
+        if key in seen and r.steps:
+            first = seen[key]
+            if first.segment is not None:
+                a, b = first.segment
+                where = f" (the {what} from x = {fmt(a, 'span', system)} to {fmt(b, 'span', system)})"
+            elif first.location is not None:
+                where = f" (the {what} at x = {fmt(first.location, 'span', system)})"
+            else:
+                where = ""
+            note = (r.note + "; " if r.note else "") + f"capacity derived above{where}"
+            out.append(replace(r, steps=(), note=note))
+        else:
+            seen.setdefault(key, r)
+            out.append(r)
+    return out
+
+
 def deflection_checks(sheet) -> list:
     """Span-by-span deflection checks of a beam sheet through the design engine's deflection check:
     the largest |deflection| of each service envelope in each span against span / n (the parameters'

@@ -19,6 +19,7 @@ __all__ = ["GirderSheet"]
 class GirderSheet(BeamSheet):
     calc = "plate_girder"
     title = "Welded plate girder"
+    deflection_number = "8"
 
     def register_parts(self):
         for name, fn in (("loads", self._loads), ("analysis", self._analysis),
@@ -98,13 +99,20 @@ class GirderSheet(BeamSheet):
     def _bending(self):
         from ..render import Section
 
-        recs = [to_render(r, self.system) for r in self.design_results() if not self._is_shear(r)]
+        from .design import compact_repeats
+
+        bend = compact_repeats([r for r in self.design_results() if not self._is_shear(r)], self.system,
+                               what="segment")
+        recs = [to_render(r, self.system) for r in bend]
         return [Section("Bending", recs, number="5", system=self.system)]
 
     def _shear(self):
         from ..render import Section
 
-        recs = [to_render(r, self.system) for r in self.design_results() if self._is_shear(r)]
+        from .design import compact_repeats
+
+        shear = compact_repeats([r for r in self.design_results() if self._is_shear(r)], self.system)
+        recs = [to_render(r, self.system) for r in shear]
         intro = (f"Intermediate transverse stiffeners at a = {fmt(self.a, 'span', self.system)}." if self.a else
                  "No intermediate transverse stiffeners (stiffeners at the supports only).")
         return [Section("Shear, with the transverse stiffener spacing", recs, number="6", intro=intro,
