@@ -46,14 +46,26 @@ def summary_csv(rows: Sequence[Row]) -> str:
     return buf.getvalue()
 
 
+def _record_links(record: str) -> str:
+    """Links to the archived HTML page and notebook of ``record`` (a path relative to the archive root);
+    the summary page lives one folder down, in ``<out>/<date>/``."""
+    if not record:
+        return ""
+    e = _html.escape
+    nb = "../" + Path(record).as_posix()
+    page = "../" + Path(record).with_suffix(".html").as_posix()
+    return f'<a href="{e(page)}">{e(record)}</a> (<a href="{e(nb)}">ipynb</a>)'
+
+
 def summary_html(rows: Sequence[Row], title: str) -> str:
     e = _html.escape
     head = "".join(f"<th>{e(c)}</th>" for c in ("file",) + COLUMNS)
     body = []
     for r in rows:
-        cells = [r.file] + _cells(r)
+        cells = [e(c) for c in [r.file] + _cells(r)]
+        cells[COLUMNS.index("record") + 1] = _record_links(r.record)
         cls = {FAIL: "fail", ERROR: "error", INVALID: "error"}.get(r.status, "")
-        body.append(f'<tr class="{cls}">' + "".join(f"<td>{e(c)}</td>" for c in cells) + "</tr>")
+        body.append(f'<tr class="{cls}">' + "".join(f"<td>{c}</td>" for c in cells) + "</tr>")
     from .render.blocks import CAUTION_TEXT
 
     return ("<!DOCTYPE html><html lang=\"en\"><head><meta charset=\"utf-8\"><title>" + e(title) +

@@ -90,6 +90,16 @@ def test_demo_batch_exit_code_and_summary(demo):
     assert f"[{n:2d}/{n}]" in p.stderr  # progress lines
 
 
+def test_summary_page_links_every_record(demo):
+    """The summary page links each member's archived HTML page and notebook, and the links resolve."""
+    out = demo["out"]
+    page = sorted(out.glob("*/batch-*-summary.html"))[0]
+    hrefs = re.findall(r'href="([^"]+)"', page.read_text(encoding="utf-8"))
+    assert len(hrefs) == 2 * len(_expected())
+    for h in hrefs:
+        assert (page.parent / h).resolve().is_file(), h
+
+
 def test_every_record_archived_with_offline_html(demo):
     out = demo["out"]
     for member, (calc, _, _) in _expected().items():
