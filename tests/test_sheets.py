@@ -64,7 +64,7 @@ def test_compact_repeats_shows_each_derivation_once():
                     passed=True, location=3.0, steps=(step,))
     c = CheckResult("Shear", "AISC 360-22 G2.2", "force", capacity=380e3, nominal=420e3, demand=200e3,
                     ratio=200 / 380, passed=True, location=4.5, steps=(step,))
-    out = compact_repeats([a, b, c], "SI")
+    out = compact_repeats([a, b, c], "SI", what="panel")
     assert out[0] is a and out[2] is c  # first of its kind and a different capacity keep their steps
     assert out[1].steps == () and out[1].ratio == 0.5 and out[1].demand == 200e3
     assert "capacity derived above (the panel at x = 1.5" in out[1].note

@@ -298,8 +298,11 @@ class BeamSheet(CalcSheet):
     def _checks(self):
         from ..render import Section
 
+        from .design import compact_repeats
+
         title = f"Design checks, {self.standard_text()}"
-        return [Section(title, self.strength_checks(), number="5", system=self.system)]
+        recs = [to_render(r, self.system) for r in compact_repeats(self.design_results(), self.system)]
+        return [Section(title, recs, number="5", system=self.system)]
 
     def _deflection(self):
         from ..render import Section

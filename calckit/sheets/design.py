@@ -65,7 +65,7 @@ def to_render(cr, system: str = "SI") -> Any:
                  note=note)
 
 
-def compact_repeats(results, system: str = "SI", what: str = "panel") -> list:
+def compact_repeats(results, system: str = "SI", what: str | None = None) -> list:
     """Design results with the derivation shown once: a result whose limit state, clause and capacity
     equal an earlier one's keeps only its demand-versus-capacity line, with a note saying where its
     capacity was derived (e.g. the interior stiffener panels of a girder, all of the same width a)."""
@@ -83,9 +83,10 @@ def compact_repeats(results, system: str = "SI", what: str = "panel") -> list:
             first = seen[key]
             if first.segment is not None:
                 a, b = first.segment
-                where = f" (the {what} from x = {fmt(a, 'span', system)} to {fmt(b, 'span', system)})"
+                span = f"from x = {fmt(a, 'span', system)} to {fmt(b, 'span', system)}"
+                where = f" (the {what or 'segment'} {span})"
             elif first.location is not None:
-                where = f" (the {what} at x = {fmt(first.location, 'span', system)})"
+                where = f" (the {what or 'check'} at x = {fmt(first.location, 'span', system)})"
             else:
                 where = ""
             note = (r.note + "; " if r.note else "") + f"capacity derived above{where}"

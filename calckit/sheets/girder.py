@@ -101,8 +101,7 @@ class GirderSheet(BeamSheet):
 
         from .design import compact_repeats
 
-        bend = compact_repeats([r for r in self.design_results() if not self._is_shear(r)], self.system,
-                               what="segment")
+        bend = compact_repeats([r for r in self.design_results() if not self._is_shear(r)], self.system)
         recs = [to_render(r, self.system) for r in bend]
         return [Section("Bending", recs, number="5", system=self.system)]
 
@@ -111,7 +110,8 @@ class GirderSheet(BeamSheet):
 
         from .design import compact_repeats
 
-        shear = compact_repeats([r for r in self.design_results() if self._is_shear(r)], self.system)
+        shear = compact_repeats([r for r in self.design_results() if self._is_shear(r)], self.system,
+                                what="panel")
         recs = [to_render(r, self.system) for r in shear]
         intro = (f"Intermediate transverse stiffeners at a = {fmt(self.a, 'span', self.system)}." if self.a else
                  "No intermediate transverse stiffeners (stiffeners at the supports only).")
