@@ -246,3 +246,12 @@ def test_package_catalog_function_survives_submodule_import():
     S.section("W18X50")  # imports calckit.sections.catalog
     assert callable(S.catalog) and not hasattr(S.catalog, "__file__")
     assert S.catalog("IPE", depth=("300 mm", "300 mm"))[0].name == "IPE300"
+
+
+@pytest.mark.parametrize("given, shown", [("ipe300", "IPE 300"), ("HEB300", "HE 300 B"), ("HE 1000 A", "HE 1000 A"),
+                                          ("w18x50", "W18X50")])
+def test_designation_as_written_in_drawings(given, shown):
+    # EN 10365 writes "IPE 300", "HE 300 A"/"HE 300 B"; the AISC Manual writes "W18X50" (from memory)
+    sec = cat.section(given)
+    assert sec.designation == shown
+    assert cat.section(sec.designation) is sec  # the shown form reads back to the same section

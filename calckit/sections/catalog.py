@@ -15,9 +15,10 @@ and the same immutable object is returned afterwards.
 >>> s.tabulated["Ix"]                      # handbook value, SI float (m4)
 >>> [b.name for b in catalog("IPE", depth=("300 mm", "400 mm"))]
 
-Each section is a :class:`calckit.sections.IShape` (root fillets included) with two extra attributes:
+Each section is a :class:`calckit.sections.IShape` (root fillets included) with three extra attributes:
 
 ``family``     "W", "IPE", "HEA" or "HEB"
+``designation`` the name as written in drawings: "IPE 300", "HE 300 B", "W18X50"
 ``tabulated``  read-only mapping of the handbook's values as SI floats, in calckit's x-major naming:
                ``A`` (m2), ``Ix``, ``Iy``, ``J`` (m4), ``Sx``, ``Zx`` (m3), ``Cw`` (m6), ``mass`` (kg/m;
                for W shapes the nominal weight in lb/ft converted) and, for W shapes only, ``k_des`` (m).
@@ -172,6 +173,16 @@ def normalize_name(name: str) -> str:
     return s
 
 
+def designation(name: str) -> str:
+    """The designation as engineers write it in drawings and calcs: "IPE 300", "HE 300 A", "HE 300 B"
+    (EN 10365 style); W shapes keep the AISC form "W18X50". ``name`` is a normalised catalog name."""
+    m = re.fullmatch(r"HE([AB])(\d+)", name)
+    if m:
+        return f"HE {m.group(2)} {m.group(1)}"
+    m = re.fullmatch(r"IPE(\d+)", name)
+    return f"IPE {m.group(1)}" if m else name
+
+
 _BUILT: dict[str, object] = {}
 
 
@@ -184,6 +195,7 @@ def _build(row: CatalogRow):
         # Section.__setattr__ allows setting a new attribute once; the mapping is read-only.
         sec.family = row.family
         sec.tabulated = row.tabulated
+        sec.designation = designation(row.name)
         _BUILT[row.name] = sec
     return sec
 

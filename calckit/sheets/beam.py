@@ -172,7 +172,8 @@ class BeamSheet(CalcSheet):
 
             inputs = dict(h.inputs)
             text, meaning = inputs.get("section", ("lightest", ""))
-            inputs["section"] = (f"{text}: {sel.name} chosen (part 3)", meaning)
+            chosen = getattr(sel.section, "designation", sel.name)
+            inputs["section"] = (f"{text}: {chosen} chosen (part 3)", meaning)
             h = replace(h, inputs=inputs)
         return h
 
@@ -224,13 +225,14 @@ class BeamSheet(CalcSheet):
 
         s = self.section.si
         sec = self.section
+        label = getattr(sec, "designation", sec.name)
         family = getattr(sec, "family", "")
         if family:
             dims = "EN 10365 (catalog)" if family in ("IPE", "HEA", "HEB") else "ASTM A6 (catalog)"
-            ref_dim = f"{sec.name} dimensions, {dims}"
-            ref_prop = f"{sec.name}: computed from the dimensions, root fillets included"
+            ref_dim = f"{label} dimensions, {dims}"
+            ref_prop = f"{label}: computed from the dimensions, root fillets included"
         else:
-            ref_dim = ref_prop = f"{sec.name} (given dimensions)"
+            ref_dim = ref_prop = f"{label} (given dimensions)"
         rows = [("d", "d", "length", "overall depth"), ("b_f", "bf_top", "length", "flange width"),
                 ("t_f", "tf_top", "length", "flange thickness"), ("t_w", "tw", "length", "web thickness"),
                 ("A", "A", "area", "area"), ("I_x", "Ix", "inertia", "second moment of area, major axis"),
@@ -249,7 +251,7 @@ class BeamSheet(CalcSheet):
                  given("E", st.si.E, "stress",
                        reference=("AISC 360-22, Symbols: E = 29,000 ksi" if st.standard == "ASTM"
                                   else "EN 1993-1-1:2005 3.2.6(1)"))]
-        blocks = [Section(f"Section {self.section.name}, steel {st.name}", recs, number="3", system=self.system)]
+        blocks = [Section(f"Section {label}, steel {st.name}", recs, number="3", system=self.system)]
         sel = getattr(self, "selection", None)
         if sel is not None and sel.picked:
             from ..pick.report import candidates_table
