@@ -29,8 +29,8 @@ PROPERTY_ROWS = (
     ("Sy", "S_y", "modulus", "elastic modulus, minor axis"),
     ("Zy", "Z_y", "modulus", "plastic modulus, minor axis"),
     ("ry", "r_y", "length", "radius of gyration, minor axis"),
-    ("J", "J", "inertia", "St Venant torsion constant (sum of the parts)"),
-    ("Cw", "C_w", "warping", "warping constant (thin-walled I idealisation)"),
+    ("J", "J", "inertia", "St Venant torsion constant (welded parts as one solid)"),
+    ("Cw", "C_w", "warping", "warping constant (from the warping function)"),
     ("y_s", "y_s", "length", "shear centre above the bottom fibre"),
     ("Q_na", "Q_NA", "modulus", "first moment of the area above the elastic NA"),
 )
@@ -105,7 +105,16 @@ class BuiltUpSheet(CalcSheet):
         from ..render import given
 
         s = self.section.si
-        return [given(sym, getattr(s, f), dim, reference=_REF, label=label) for f, sym, dim, label in PROPERTY_ROWS]
+        tor = getattr(self.section, "torsion", None)
+        if tor is None:
+            ref_t = _REF
+        elif tor.method.startswith("finite volumes"):
+            ref_t = (f"calckit.sections.torsion: finite volumes on {tor.cells} cells, Prandtl stress function "
+                     "and warping function (Pilkey, Analysis and Design of Elastic Beams, 2002, ch. 6)")
+        else:
+            ref_t = tor.method
+        return [given(sym, getattr(s, f), dim, reference=ref_t if f in ("J", "Cw", "y_s", "x_s") else _REF,
+                      label=label) for f, sym, dim, label in PROPERTY_ROWS]
 
     def _properties(self):
         from ..render import Section
