@@ -23,7 +23,7 @@ from typing import Iterable
 import numpy as np
 
 from ..errors import InputError
-from .piecewise import extrema as _extrema
+from .piecewise import extrema as _extrema, load_scale, roundoff_scale, snap_zero
 from .solver import solve_batch, split_by_span
 
 __all__ = ["Envelope", "SpanEnvelope", "EnvelopeExtreme", "envelope", "stations_for"]
@@ -258,8 +258,11 @@ def envelope(solution, combinations: Iterable, *, n_per_span: int = 40, stations
     Q = {"V": _horner(batch.V, seg, t), "M": _horner(batch.M, seg, t), "defl": _horner(batch.delta, seg, t)}
     C = {"V": batch.V, "M": batch.M, "defl": batch.delta}
     out, per_combo = {}, {}
+    Wabs = np.abs(Wb) + np.abs(Wp)  # round-off scale of a combination: the weighted sub-case scales
     for q in _QUANT:
         hi, lo = _pattern_extremes(Q[q], Wb, Wp, pattern_method, len(cases), n_spans)
+        sc = (Wabs @ roundoff_scale(grid.x, C[q]))[:, None]
+        hi, lo = snap_zero(hi, sc), snap_zero(lo, sc)
         per_combo[q] = (hi, lo)
         out[f"{q}_max_by"] = np.argmax(hi, axis=0)
         out[f"{q}_min_by"] = np.argmin(lo, axis=0)
@@ -267,6 +270,10 @@ def envelope(solution, combinations: Iterable, *, n_per_span: int = 40, stations
         out[f"{q}_min"] = lo.min(axis=0)
     rhi, rlo = _pattern_extremes(batch.R, Wb, Wp, pattern_method, len(cases), n_spans)
     mhi, mlo = _pattern_extremes(batch.Mr, Wb, Wp, pattern_method, len(cases), n_spans)
+    sc = (Wabs @ load_scale(grid.x, batch.V, grid.support_node, batch.R))[:, None]
+    rhi, rlo = snap_zero(rhi, sc), snap_zero(rlo, sc)
+    sc = (Wabs @ roundoff_scale(grid.x, batch.M))[:, None]
+    mhi, mlo = snap_zero(mhi, sc), snap_zero(mlo, sc)
 
     span_env = []
     for sp in range(n_spans):

@@ -4,6 +4,11 @@ per-case results that :meth:`calckit.analysis.Beam.solve` returns (:class:`BeamS
 Sign conventions are those of :mod:`calckit.analysis` (deflection downward positive, sagging moment
 positive, V = sum of upward forces left of the section). Methods ending in ``_si`` take positions in m
 (float or numpy array) and return SI floats; the others take and return pint quantities.
+
+Values that are zero in statics (moment at a pinned end, shear and moment at a free end, deflection at a
+support, ...) are returned as exactly 0.0, not as rounding noise: every evaluation and extreme snaps
+values below :data:`~calckit.analysis.piecewise.ZERO_REL` of the quantity's scale over the beam, and
+the reactions are snapped relative to the total load (:func:`~calckit.analysis.solver.solve_batch`).
 """
 from __future__ import annotations
 
@@ -13,7 +18,7 @@ from typing import Iterable, Mapping
 import numpy as np
 
 from ..errors import InputError
-from .piecewise import Extreme, evaluate, extrema
+from .piecewise import Extreme, evaluate, extrema, roundoff_scale
 from .solver import SNAP_REL, Batch, Grid, Layout
 
 __all__ = ["Reaction", "Extrema", "BeamResult", "BeamSolution", "combination_name"]
@@ -128,21 +133,31 @@ class BeamResult:
             raise InputError(f"x: got {bad:.6g} m; expected a position on the beam, 0 to {L:.6g} m")
         return np.clip(xa, 0.0, L)
 
+    def _eval(self, attr: str, x, side: str):
+        """Value of one polynomial at x, round-off below ZERO_REL of its scale over the beam as 0.0
+        (:mod:`calckit.analysis.piecewise`; the scale is computed once per result)."""
+        cache = self.__dict__.setdefault("_roundoff", {})  # frozen dataclass: cache in the instance dict
+        c = getattr(self, attr)
+        sc = cache.get(attr)
+        if sc is None:
+            sc = cache[attr] = roundoff_scale(self.grid.x, c)
+        return evaluate(self.grid.x, c, self._x(x), side, scale=sc)
+
     def V_si(self, x, side: str = "right"):
         """Shear (N) at x (m); at a point load 'left'/'right' picks the side."""
-        return evaluate(self.grid.x, self.Vc, self._x(x), side)
+        return self._eval("Vc", x, side)
 
     def M_si(self, x, side: str = "right"):
         """Bending moment (N*m, sagging positive) at x (m)."""
-        return evaluate(self.grid.x, self.Mc, self._x(x), side)
+        return self._eval("Mc", x, side)
 
     def slope_si(self, x, side: str = "right"):
         """Slope d(deflection)/dx (rad) at x (m); it jumps at hinges."""
-        return evaluate(self.grid.x, self.phic, self._x(x), side)
+        return self._eval("phic", x, side)
 
     def deflection_si(self, x):
         """Deflection (m, downward positive) at x (m)."""
-        return evaluate(self.grid.x, self.deltac, self._x(x), "right")
+        return self._eval("deltac", x, "right")
 
     # -- evaluation, quantities --------------------------------------------------------------------
     def _q(self, fn, x, dim, system, **kw):

@@ -27,7 +27,10 @@ equations (transfer-matrix method with exact load terms; e.g. E. C. Pestel and F
 Stability is decided beforehand from the geometry alone (:func:`check_stability`): the beam is a
 mechanism when a rigid-body motion, straight between hinges, satisfies every support condition.
 
-The results are the exact piecewise polynomials (to rounding); nothing is discretised.
+The results are the exact piecewise polynomials (to rounding); nothing is discretised. Reactions
+below :data:`~calckit.analysis.piecewise.ZERO_REL` of the load set's total load are returned as 0.0
+(round-off of the solve); values along the beam are snapped the same way where they are evaluated
+(:mod:`calckit.analysis.piecewise`).
 """
 from __future__ import annotations
 
@@ -37,6 +40,7 @@ import numpy as np
 
 from ..errors import UnstableError
 from .loads import Couple, LinearLoad, PointLoad, Support
+from .piecewise import load_scale, roundoff_scale, snap_zero
 
 __all__ = ["Layout", "Grid", "Batch", "make_grid", "solve_batch", "check_stability", "split_by_span"]
 
@@ -370,6 +374,10 @@ def solve_batch(layout: Layout, g: Grid, load_sets) -> Batch:
     Mr = np.zeros((B, ns))
     for i, key in enumerate(unk[nX:], start=nX):
         (R if key[0] == "R" else Mr)[:, key[1]] = u[i]
+    # reactions that are zero in statics come out of the solve as round-off: exactly 0.0 (relative to
+    # each load set's total load, and to its moment scale for the moment reactions)
+    R = snap_zero(R, load_scale(g.x, out[0], g.support_node, R)[:, None])
+    Mr = snap_zero(Mr, roundoff_scale(g.x, out[1])[:, None])
     return Batch(g, *out, R, Mr)
 
 

@@ -132,6 +132,8 @@ def diagram_moments(x: np.ndarray, M: np.ndarray, segs) -> list[tuple]:
         L = sg.b - sg.a
         pts[i] = (sg.a, sg.a + 0.25 * L, sg.a + 0.5 * L, sg.a + 0.75 * L, sg.b)
     q = np.interp(pts.ravel(), x, M).reshape(n, 5)
+    # a quarter point one ulp off a station where M is exactly 0 interpolates to round-off noise
+    q[np.abs(q) <= 1e-12 * float(np.max(np.abs(M), initial=0.0))] = 0.0
     span = max(float(x[-1] - x[0]), 1e-9)
     out = []
     for i, sg in enumerate(segs):
