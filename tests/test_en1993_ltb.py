@@ -62,6 +62,26 @@ def test_result_attributes_and_general_method():
     assert len(r.steps) > 5
 
 
+def test_mcr_shown_in_three_steps_with_one_value():
+    # three-factor formula (ENV 1993-1-1 Annex F Eq. (F.2), from memory) written out here with k = 0.7,
+    # k_w = 1, load 100 mm above the shear centre, C1/C2 given: N_cr,z, root term, M_cr in that order
+    s = calckit.section("IPE 300")
+    si = s.si
+    E, G = 210e9, 210e9 / 2.6
+    C1, C2, k, zg, L = 1.35, 0.55, 0.7, 0.1, 4.0
+    r = en1993.ltb(s, "S275", L="4 m", C1=C1, C2=C2, k=k, zg="100 mm", method="general", M_Ed="60 kN*m")
+    syms = [getattr(st_, "symbol", None) for st_ in r.steps]
+    i = syms.index("N_cr_z")
+    assert syms[i:i + 3] == ["N_cr_z", "R_LT", "M_cr"]
+    N = math.pi ** 2 * E * si.Iy / (k * L) ** 2
+    root = math.sqrt(k ** 2 * si.Cw / si.Iy + (k * L) ** 2 * G * si.J / (math.pi ** 2 * E * si.Iy) + (C2 * zg) ** 2)
+    assert r.steps[i].result == pytest.approx(N, rel=REL)
+    assert r.steps[i + 1].result == pytest.approx(root, rel=REL)
+    assert r.Mcr == r.steps[i + 2].result == pytest.approx(C1 * N * (root - C2 * zg), rel=REL)
+    fast = en1993.ltb(s, "S275", L="4 m", C1=C1, C2=C2, k=k, zg="100 mm", method="general", steps=False)
+    assert fast.Mcr == r.Mcr and fast.steps == ()  # same formulas on the numeric path
+
+
 def test_modification_factor_f():
     s = calckit.section("IPE 330")
     r = en1993.ltb(s, "S235", L="5.7 m", moment_diagram="udl", method="rolled", use_f=True, M_Ed="90 kN*m")

@@ -58,6 +58,18 @@ def test_printed_C1_C2_reproduce_Mcr_and_Mb_Rd(ipe330):
     assert r.clause.endswith("6.3.2.3")
 
 
+def test_Mcr_steps_show_the_printed_intermediate(ipe330):
+    # SX001a prints pi^2 E I_z / L^2 = 502.75 kN (k = 1); the sheet shows it as the first of the three M_cr
+    # steps, and the last step (M_cr = C1 N_cr,z [R_LT - (C2 z_g - C3 z_j)]) reproduces the printed M_cr
+    r = en1993.ltb(ipe330, "S235", L=L, C1=1.127, C2=0.454, zg=ZG, method="rolled", M_Ed=f"{M_ED} N*m")
+    st = {getattr(s_, "symbol", None): s_ for s_ in r.steps}
+    assert st["N_cr_z"].result == rel(502.75e3)
+    assert st["M_cr"].result == r.Mcr == rel(113.9e3)
+    C2zg = 0.454 * 0.165  # SX001a: C2 z_g = 74.91 mm
+    assert C2zg == pytest.approx(0.07491, rel=REL_BOOK)
+    assert 1.127 * st["N_cr_z"].result * (st["R_LT"].result - C2zg) == pytest.approx(r.Mcr, rel=1e-12)
+
+
 def test_C1_without_C2_takes_SN003_C2(ipe330):
     r = en1993.ltb(ipe330, "S235", L=L, C1=1.127, zg=ZG, method="rolled")
     assert r.C2 == 0.454

@@ -13,7 +13,8 @@
   ignored; calckit reports it and uses chi_LT from the curve (which is 1 on the plateau of 6.3.2.3 and
   slightly below 1 between 0.2 and 0.4 for the general case, conservative).
 M_cr: :mod:`.mcr` (three-factor formula with C1, C2, C3 from the moment diagram) for segments between
-lateral-torsional restraints; for a cantilever or an overhang (one free end) M_cr comes directly from the
+lateral-torsional restraints, shown in three steps (:func:`mcr_three_factor`: N_cr,z = pi^2 E I_z/(k L)^2,
+the root term R_LT, then M_cr = C1 N_cr,z [R_LT - (C2 z_g - C3 z_j)]); for a cantilever or an overhang (one free end) M_cr comes directly from the
 energy solution of :mod:`.cantilever` (built-in root, or the overhang solved with the segment behind its
 root support), shown as M_cr = gamma_cr sqrt(E I_z G I_t)/L with gamma_cr from that solution; C1 is not
 used there, and f = 1 (Table 6.6 lists no cantilever case).
@@ -39,17 +40,26 @@ from .factors import AnnexSet, annex_set
 from .cantilever import OverhangModel, gamma_cr, model as _cant_model
 from .mcr import SN003_TABLE, shape, standard_diagram, z_j
 
-__all__ = ["ltb", "ltb_si", "chi_lt", "imperfection", "kc_table66", "ALPHA_LT", "Diagram", "diagram",
+__all__ = ["ltb", "ltb_si", "mcr_three_factor", "chi_lt", "imperfection", "kc_table66", "ALPHA_LT", "Diagram", "diagram",
            "cantilever_diagram", "overhang_model"]
 
 _R = "EN 1993-1-1:2005"
 ALPHA_LT = {"a0": 0.13, "a": 0.21, "b": 0.34, "c": 0.49, "d": 0.76}  #: Table 6.3
 
 _DIMS_MCR = {"M_cr": "moment", "E": "stress", "G": "stress", "I_z": "inertia", "I_t": "inertia",
-             "I_w": "warping", "L": "span", "z_g": "length", "z_j": "length"}
-F_MCR = formula("M_cr", "C_1*pi**2*E*I_z/(k*L)**2*(sqrt((k/k_w)**2*I_w/I_z + (k*L)**2*G*I_t/(pi**2*E*I_z)"
-                " + (C_2*z_g - C_3*z_j)**2) - (C_2*z_g - C_3*z_j))",
-                "ENV 1993-1-1:1992 Annex F Eq. (F.2); NCCI SN003 Eq. (1)", "elastic critical moment",
+             "I_w": "warping", "L": "span", "z_g": "length", "z_j": "length", "N_cr_z": "force",
+             "R_LT": "length"}
+_REF_MCR = "ENV 1993-1-1:1992 Annex F Eq. (F.2); NCCI SN003 Eq. (1)"
+# The three-factor formula
+#   M_cr = C1 pi^2 E I_z/(k L)^2 [sqrt((k/k_w)^2 I_w/I_z + (k L)^2 G I_t/(pi^2 E I_z) + (C2 z_g - C3 z_j)^2)
+#          - (C2 z_g - C3 z_j)]
+# written as the three steps an engineer checks by hand; the value is computed through the same three
+# formulas on both paths (steps=True records them, steps=False evaluates them).
+F_NCR_Z = formula("N_cr_z", "pi**2*E*I_z/(k*L)**2", _REF_MCR + ", first factor",
+                  "elastic critical force, flexural buckling about the minor axis", dims=_DIMS_MCR)
+F_R_LT = formula("R_LT", "sqrt((k/k_w)**2*I_w/I_z + (k*L)**2*G*I_t/(pi**2*E*I_z) + (C_2*z_g - C_3*z_j)**2)",
+                 _REF_MCR + ", root term", "root term of the three-factor formula", dims=_DIMS_MCR)
+F_MCR = formula("M_cr", "C_1*N_cr_z*(R_LT - (C_2*z_g - C_3*z_j))", _REF_MCR, "elastic critical moment",
                 dims=_DIMS_MCR)
 F_MCR_CANT = formula("M_cr", "gamma_cr*sqrt(E*I_z*G*I_t)/L",
                      "energy solution of the cantilever (Timoshenko and Gere 1961, 6.4 form); calckit.design."
@@ -241,6 +251,17 @@ def kc_table66(fn) -> tuple[float | None, str, float | None]:
 
 
 # ------------------------------------------------------------------------------------------ the check
+def mcr_three_factor(calc: Calc, C1: float, C2: float, C3: float, E: float, G: float, Iz: float, It: float,
+                     Iw: float, L: float, k: float = 1.0, kw: float = 1.0, zg: float = 0.0, zj: float = 0.0
+                     ) -> float:
+    """M_cr (N m) of the three-factor formula (ENV 1993-1-1 Annex F Eq. (F.2); NCCI SN003 Eq. (1)) in
+    three steps: N_cr,z = pi^2 E I_z/(k L)^2; the root term R_LT = sqrt((k/k_w)^2 I_w/I_z + (k L)^2 G I_t/
+    (pi^2 E I_z) + (C2 z_g - C3 z_j)^2); M_cr = C1 N_cr,z [R_LT - (C2 z_g - C3 z_j)]. SI floats."""
+    N = calc(F_NCR_Z, E=E, I_z=Iz, k=k, L=L)
+    R = calc(F_R_LT, k=k, k_w=kw, I_w=Iw, I_z=Iz, L=L, G=G, I_t=It, E=E, C_2=C2, z_g=zg, C_3=C3, z_j=zj)
+    return calc(F_MCR, C_1=C1, N_cr_z=N, R_LT=R, C_2=C2, z_g=zg, C_3=C3, z_j=zj)
+
+
 def _curve(s, method: str, annex: AnnexSet) -> tuple[str, float]:
     hb = s.d / min(s.bf_top, s.bf_bot)
     idx = (0 if hb <= 2 else 1) + (0 if s.kind == "I_rolled" else 2)
@@ -329,8 +350,7 @@ def ltb_si(s, mat: Material, annex: AnnexSet, *, L: float, C1=None, C2=None, C3=
                                      "moment_diagram")
         calc.say(f"C1 = {C1:g} given", "input")
     if Mcr is None:
-        Mcr = calc(F_MCR, C_1=C1, C_2=C2, C_3=C3, E=E, G=G, I_z=s.Iy, I_t=s.J, I_w=s.Cw, L=L, k=k, k_w=kw,
-                   z_g=zg, z_j=zj)
+        Mcr = mcr_three_factor(calc, C1, C2, C3, E, G, s.Iy, s.J, s.Cw, L, k, kw, zg, zj)
     if not Mcr > 0:
         raise InputError(f"M_cr: got {Mcr:.4g} N m from the three-factor formula; check C1, C2, z_g")
     lam = calc(F_LAM, W_y=W, f_y=mat.fy, M_cr=Mcr)
