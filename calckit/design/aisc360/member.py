@@ -7,7 +7,9 @@
    compression flange;
 2. shear (G2.1 / G2.2) over the member, or per panel between transverse stiffeners, and the transverse
    stiffener requirement (G2.3) when stiffeners are given;
-3. concentrated forces (J10.1-J10.3) at every bearing given (reactions and loads);
+3. concentrated forces (J10.1-J10.3; J10.4 and web compression buckling where a bearing asks for
+   them) at every bearing given (reactions and loads), with the stiffener pair (J10.8) sized or
+   checked where a force fails;
 4. deflection against L/n per serviceability case and span part (cantilevers: 2L, common practice);
 5. proportioning limits of welded I-shapes (F13.2).
 
@@ -22,7 +24,7 @@ from ...errors import InputError
 from ..results import CheckResult, MemberResult
 from ._core import CAUTION, STANDARD, Calc, Fm, factor_of, material, parse_method, props, result
 from .cb import F1_1, cb_value
-from .concentrated import forces as _forces
+from .concentrated import member_forces as _member_forces
 from .deflection import deflection_check
 from .demands import Demands, demands as _demands
 from .flexure import FlexSection, build_result
@@ -188,13 +190,9 @@ def _check(p, mat, D: Demands, method: str, steps: bool, *, stiffener=None, pair
             checks.extend(replace(r, location=xs, note="; ".join(n for n in (r.note, f"governing stiffener at "
                           f"x = {xs:.4g} m") if n)) for r in rs)
     # -------------------------------------------------------------------------- concentrated forces
-    for fd in D.forces:
-        b = fd.bearing
-        tf, bf = (p.tf_top, p.bf_top) if b.flange == "top" else (p.tf_bot, p.bf_bot)
-        note = "k = tf: no flange-to-web weld size given" if p.kind == "I_welded" and p.weld == 0 else ""
-        checks.extend(_forces(p, mat, b.lb, b.x_end, tf, bf, method, Calc(steps), b.P, tension=b.tension,
-                              width=b.width, location=b.x, label=b.name or f"x = {b.x:.4g} m",
-                              combination=fd.combination, note_extra=note))
+    # J10.1-J10.5 per force; J10.4 / web compression buckling where the bearing asks for them, and the
+    # stiffener pair (J10.8) of a failing force (concentrated.member_forces)
+    checks.extend(_member_forces(p, mat, D, method, steps))
     # ---------------------------------------------------------------------------------- deflection
     scale = 1.0
     if D.deflections and D.EI_ref is not None:
