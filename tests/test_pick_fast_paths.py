@@ -4,7 +4,9 @@
   ``with_self_weight(w)`` per candidate (calckit.pick.checks.en_check), against ``en1993.check_member``
   called with the candidate's own diagrams (arrays, self-weight included).
 - AISC 360-22: ``aisc360.demands`` prepared once, segment moments and panel shears replaced per
-  candidate (calckit.pick.checks._aisc_candidate), against ``aisc360.check_member`` with the arrays.
+  candidate (calckit.pick.checks._aisc_candidate), against ``aisc360.check_member`` with the arrays;
+  and the vectorised preparation of every candidate at once (_AiscPlan.prepare) against that loop.
+- EN 1993-1-1 energy solution: Shape.combine2 and the memo of Shape.mcr against the general path.
 No engineering reference values: these pin the fast paths to the reference calls (the brute-force
 searches in tests/test_pick.py compare the outcome with independent scalar checks).
 """
@@ -119,3 +121,60 @@ def test_many_arrangements_fall_back_to_the_exact_envelope():
                                                             rel=2e-3)
         assert getattr(d, f"{q}_min").min() == pytest.approx(min(getattr(s, f"{q}_min").value for s in env.spans),
                                                             rel=2e-3)
+
+
+# --------------------------------------------------------------------- vectorised preparation (search)
+@pytest.mark.parametrize("i", range(len(AISC)))
+def test_aisc_prepared_moments_equal_per_candidate_loop(i):
+    """_AiscPlan.prepare (numpy over every candidate and diagram at once) gives exactly the segment
+    moments, Cb-dominance selection and panel shears of the per-candidate loop of _aisc_candidate."""
+    from calckit.pick.checks import _AiscPlan, _aisc_candidate
+
+    m = AISC[i]
+    secs, dem = _demands(m, ["W8X10", "W12X26", "W16X40", "W18X50", "W21X62", "W24X84"])
+    ctx = _context(m)
+    D0, plan = dem[0].response.aisc_demands(ctx["supports"], ctx["bracing"], None, plan=_AiscPlan)
+    plan.pre = {}
+    loop = [_aisc_candidate(D0, d, plan) for d in dem]
+    plan.prepare(dem)
+    assert len(plan.pre) == len(dem)
+    for d, ref in zip(dem, loop):
+        fast = _aisc_candidate(D0, d, plan)
+        assert fast.flexure == ref.flexure  # the same floats, items and order
+        assert fast.shear == ref.shear
+    plan.pre = {}
+
+
+@pytest.mark.parametrize("m", AISC, ids=["thirds", "two-spans-asd", "cantilever"])
+def test_search_with_and_without_vectorised_preparation_agree(m, monkeypatch):
+    """The whole search with the checker's prepare hook gives the same candidate records (every ratio,
+    governing check, combination and location) as with the hook removed."""
+    from calckit.pick import checks
+
+    fast = calckit.pick(m, families=["W"], depth=("150 mm", "600 mm"))
+    monkeypatch.delattr(checks.aisc_check, "prepare")
+    ref = calckit.pick(m, families=["W"], depth=("150 mm", "600 mm"))
+    assert fast.candidates == ref.candidates
+    assert (fast.chosen and fast.chosen.name) == (ref.chosen and ref.chosen.name)
+
+
+def test_shape_combine2_and_memo_equal_the_general_path():
+    """mcr.Shape.combine2 (two terms) is combine([...]) with the same arithmetic; the memo of Shape.mcr
+    returns the value of a fresh solve; both agree with the dense reference mcr_energy (rounding)."""
+    from calckit.design.en1993 import mcr
+
+    xi = mcr._basis(False, False)[0]
+    A = mcr.raw_shape(lambda q: 3.0e5 * np.sin(np.pi * q) - 1.0e5 * q, 1.0, 1.0)
+    U = mcr.raw_shape(lambda q: 2.0e3 * q * (1 - q), 1.0, 1.0)
+    peak = float(np.max(np.abs(3.0e5 * np.sin(np.pi * xi) - 1.0e5 * xi + 37.0 * 2.0e3 * xi * (1 - xi))))
+    a, b = 1.0 / peak, 37.0 / peak
+    s2 = mcr.Shape.combine2(a, A, b, U)
+    sg = mcr.Shape.combine([(a, A), (b, U)])
+    assert np.array_equal(s2.C0, sg.C0) and np.array_equal(s2.CtC, sg.CtC)
+    args = (5.0, 2.1e11 * 6.0e-6, 8.1e10 * 2.0e-7, 2.1e11 * 1.0e-7)
+    v1 = s2.mcr(*args)
+    assert s2.mcr(*args) == v1 == sg.mcr(*args)
+    assert s2.mcr(*args, zg=0.1) == sg.mcr(*args, zg=0.1)  # a different key: solved, not the memo
+    ref = mcr.mcr_energy(*args, M=lambda q: (3.0e5 * np.sin(np.pi * q) - 1.0e5 * q + 37.0 * 2.0e3 * q * (1 - q)),
+                         Mmax=peak)
+    assert v1 == pytest.approx(ref, rel=1e-10)

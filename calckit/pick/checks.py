@@ -196,6 +196,104 @@ class _AiscPlan:
                         int(np.searchsorted(x, sg.b + 1e-9 * span, "right"))) for sg in segs]
         tol = 1e-9 * max(D0.x1 - D0.x0, 1.0)
         self.panels = [np.nonzero((x >= pd.a0 - tol) & (x <= pd.a1 + tol))[0] for pd in D0.shear]
+        self.D0 = D0
+        self.pre: dict = {}  #: id(candidate demands) -> (demands, flexure items, panels), see prepare()
+
+    def prepare(self, dem) -> None:
+        """:func:`_aisc_candidate`'s segment moments, Cb and panel shears of every candidate of ``dem`` at
+        once (numpy over candidates x diagrams; the same values and rules as the per-candidate loop,
+        tests/test_pick_fast_paths.py), kept for :func:`_aisc_candidate`."""
+        from ..design.aisc360.cb import F1_1
+        from ..design.aisc360.demands import PanelDemand, SegmentDemand
+
+        D0 = self.D0
+        if not dem:
+            return
+        names = dem[0].diagram_names
+        K, N = len(names), len(dem)
+        if K == 0:
+            return
+        w = np.array([d.w_self for d in dem])
+        M = np.stack([d.diagram_M for d in dem])  # (N, K, S)
+        V = np.stack([d.diagram_V for d in dem])
+        x = dem[0].x
+        q = self.qA[None] + (self.f[None, :] * w[:, None])[:, :, None, None] * self.qU[None, None]  # (N, K, n, 5)
+        lim = 1e-12 * np.max(np.abs(M), axis=2, initial=0.0)  # diagram_moments' round-off snap
+        q[np.abs(q) <= lim[:, :, None, None]] = 0.0
+        fixed_cb = D0.Cb is not None or D0.bracing == "continuous"
+        fl: list[list] = [[] for _ in range(N)]
+        ks = np.arange(K)
+        for i, sg in enumerate(D0.segments):
+            qa, qA_, qB_, qC_, qb = (q[:, :, i, j] for j in range(5))
+            up = qa >= qb
+            bp, xp = np.where(up, qa, qb), np.where(up, sg.a, sg.b)
+            dn = qa <= qb
+            bn, xn = np.where(dn, qa, qb), np.where(dn, sg.a, sg.b)
+            i0, i1 = self.ranges[i]
+            if i1 > i0:
+                sub = M[:, :, i0:i1]
+                jp, jn = sub.argmax(axis=2), sub.argmin(axis=2)
+                vp = np.take_along_axis(sub, jp[..., None], 2)[..., 0]
+                vn = np.take_along_axis(sub, jn[..., None], 2)[..., 0]
+                hp, hn = vp > bp, vn < bn
+                bp, xp = np.where(hp, vp, bp), np.where(hp, x[i0 + jp], xp)
+                bn, xn = np.where(hn, vn, bn), np.where(hn, x[i0 + jn], xn)
+            Mpos, Mneg = np.maximum(bp, 0.0), np.maximum(-bn, 0.0)
+            Mmax = np.maximum(Mpos, Mneg)
+            MA, MB, MC = np.abs(qA_), np.abs(qB_), np.abs(qC_)
+            if fixed_cb or sg.free_end:
+                cb = np.ones((N, K))
+            else:
+                pos = Mmax > 0
+                safe = np.where(pos, Mmax, 1.0)
+                cb = np.where(pos, F1_1.fast(M_max=safe, M_A=MA, M_B=MB, M_C=MC), 1.0)
+            # item k is left out when another item j has M_pos, M_neg >= and Cb <= (one strictly, or j first)
+            Pj, Pk = Mpos[:, :, None], Mpos[:, None, :]
+            Nj, Nk = Mneg[:, :, None], Mneg[:, None, :]
+            Cj, Ck = cb[:, :, None], cb[:, None, :]
+            dom = (Pj >= Pk) & (Nj >= Nk) & (Cj <= Ck) & ((Pj > Pk) | (Nj > Nk) | (Cj < Ck)
+                                                         | (ks[:, None] < ks[None, :]))
+            dom &= ks[:, None] != ks[None, :]
+            keep = ~dom.any(axis=1)  # (N, K)
+            cols = [a.tolist() for a in (Mmax, MA, MB, MC, Mpos, xp, Mneg, xn)]
+            kl = keep.tolist()
+            for n in range(N):
+                row = [c[n] for c in cols]
+                out = fl[n]
+                for k in range(K):
+                    if kl[n][k]:
+                        out.append(SegmentDemand(sg, names[k], row[0][k], row[1][k], row[2][k], row[3][k], row[4][k],
+                                                 row[5][k], row[6][k], row[7][k]))
+        panels: list[list] = [[] for _ in range(N)]
+        for ip, pd in enumerate(D0.shear):
+            idx = self.panels[ip]
+            if not idx.size:
+                for n in range(N):
+                    panels[n].append(pd)
+                continue
+            Va = np.abs(V[:, :, idx]).reshape(N, -1)
+            a = Va.argmax(axis=1)
+            k, j = np.unravel_index(a, (K, idx.size))
+            vals, xs = Va[np.arange(N), a].tolist(), x[idx[j]].tolist()
+            for n in range(N):
+                panels[n].append(PanelDemand(pd.a0, pd.a1, pd.stiffened, pd.end_panel, vals[n], xs[n], names[int(k[n])]))
+        self.pre = {id(d): (d, tuple(fl[n]), tuple(panels[n])) for n, d in enumerate(dem)}
+
+
+def _aisc_prepare(m: Member, dem) -> None:
+    """Section search hook (:func:`calckit.pick.search.pick`): the per-candidate moments of every candidate
+    at once (:meth:`_AiscPlan.prepare`) when they share one response and no bearing check is made."""
+    if not dem or dem[0].response is None:
+        return
+    resp = dem[0].response
+    ctx = _context(m)
+    if ctx["bearing"] or any(d.response is not resp for d in dem):
+        return
+    D0, plan = resp.aisc_demands(ctx["supports"], ctx["bracing"], None, plan=_AiscPlan)
+    plan.prepare(dem)
+
+
+aisc_check.prepare = _aisc_prepare  # type: ignore[attr-defined]
 
 
 def _aisc_candidate(D0, d: Demands, plan: _AiscPlan | None = None):
@@ -209,11 +307,18 @@ def _aisc_candidate(D0, d: Demands, plan: _AiscPlan | None = None):
     from ..design.aisc360.cb import F1_1, diagram_moments
     from ..design.aisc360.demands import PanelDemand, SegmentDemand
 
+    if plan is not None:
+        hit = plan.pre.get(id(d))
+        if hit is not None and hit[0] is d and plan.D0 is D0:
+            return replace(D0, flexure=hit[1], shear=hit[2])
     names, M, V, x = d.diagram_names, d.diagram_M, d.diagram_V, d.x
     segs = D0.segments
     K = len(names)
     if plan is not None:
-        q = (plan.qA + (plan.f * d.w_self)[:, None, None] * plan.qU[None]).tolist()
+        qa = plan.qA + (plan.f * d.w_self)[:, None, None] * plan.qU[None]
+        lim = 1e-12 * np.max(np.abs(M), axis=1, initial=0.0)  # diagram_moments' round-off snap
+        qa[np.abs(qa) <= lim[:, None, None]] = 0.0
+        q = qa.tolist()
     fixed_cb = D0.Cb is not None or D0.bracing == "continuous"
     fl = []
     for i, sg in enumerate(segs):

@@ -47,7 +47,7 @@ SW_CASE = "SW"
 #: keys of the steel beam calc that describe the member (used by member_from_params)
 PARAM_KEYS = ("spans", "supports", "dead_udl", "live_udl", "roof_live_udl", "snow_udl", "point_loads",
               "bracing", "brace_points", "defl_limit_live", "defl_limit_total", "standard", "method",
-              "grade", "live_category", "self_weight")
+              "grade", "live_category", "self_weight", "bearing_length")
 
 
 @dataclass(frozen=True)
@@ -344,5 +344,5 @@ def member_from_params(params: Mapping[str, Any]) -> Member:
         roof_live_udl=v["roof_live_udl"], snow_udl=v["snow_udl"], point_loads=v["point_loads"],
         standard=std, method=v["method"] if std == AISC else "EN", grade=v["grade"], bracing=v["bracing"],
         brace_points=v["brace_points"], self_weight=v["self_weight"], live_category=v["live_category"],
-        name=str(v.get("member", "")), **limits,
+        bearing_length=v.get("bearing_length"), name=str(v.get("member", "")), **limits,
     )

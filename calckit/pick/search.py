@@ -128,6 +128,9 @@ def pick(member=None, /, *, families=None, depth=None, mass=None, n_best: int = 
     else:  # spring supports: moments depend on EI, so analyse each candidate at its own EI
         dem = [Response(m, n_per_span=n_per_span, w_ref=wi, EI=ei).demands(np.array([wi]), np.array([ei]))[0]
                for wi, ei in zip(w, EI)]
+    prepare = getattr(check, "prepare", None)
+    if prepare is not None:  # the checker's vectorised preparation of every candidate at once
+        prepare(m, dem)
     t3 = time.perf_counter()
     cands = [_candidate(s, check(m, s, d, False), float(wi)) for s, d, wi in zip(secs, dem, w)]
     t4 = time.perf_counter()

@@ -216,7 +216,7 @@ class _Combined(Diagram):
     def _shape(self, k, kw):
         if (k, kw) == self.kk and (k, kw) not in self.shapes:  # raw Shapes summed, then as any Diagram
             get_A, get_U, c = self.terms
-            self.shapes[(k, kw)] = Shape.combine([(1.0 / self.Mmax, get_A()), (c / self.Mmax, get_U())])
+            self.shapes[(k, kw)] = Shape.combine2(1.0 / self.Mmax, get_A(), c / self.Mmax, get_U())
         return super()._shape(k, kw)
 
 
@@ -300,17 +300,36 @@ class SelfWeight:
             rows = np.arange(len(live))
             peaks, signed, at = am[rows, jj].tolist(), Ms_all[rows, jj].tolist(), rg.xs[jj].tolist()
             p, q, xi = rg.p, rg.q, rg.xi
+            fixed = cache.get(("fixed", names))  # per diagram: its label and raw-Shape getter (w-independent)
+            if fixed is None:
+                fixed = cache[("fixed", names)] = {}
+                for i in live:
+                    def get_A(cache=cache, rg=rg, i=i, A=parts[i]):
+                        return self._raw(cache, i, lambda: raw_shape(lambda q: np.interp(q, rg.xi, A), k, kw))
+
+                    fixed[i] = (f"M(x) over {p:g}-{q:g} m" + (f", {names[i]}" if names[i] else ""), get_A)
+            kk = (k, kw)
             for t, i in enumerate(live):
-                if peaks[t] == 0:
+                pk = peaks[t]
+                if pk == 0:
                     continue
-                Ms, c = Ms_all[t], float(cs[t])
-
-                def get_A(cache=cache, rg=rg, i=i, A=parts[i]):
-                    return self._raw(cache, i, lambda: raw_shape(lambda q: np.interp(q, rg.xi, A), k, kw))
-
-                label = f"M(x) over {p:g}-{q:g} m" + (f", {names[i]}" if names[i] else "")
-                dia = _Combined(lambda z, xi=xi, m=Ms: np.interp(z, xi, m), peaks[t], signed[t], True, label,
-                                (get_A, get_U, c), (k, kw))
-                out.append(LTBSegment(p, q, "forks", q - p, peaks[t], at[t], signed[t] >= 0, dia,
-                                      combination=names[i]))
+                label, get_A = fixed[i]
+                sv = signed[t]
+                dia = _Combined(lambda z, xi=xi, m=Ms_all[t]: np.interp(z, xi, m), pk, sv, True, label,
+                                (get_A, get_U, float(cs[t])), kk)
+                out.append(_forks(p, q, pk, at[t], sv >= 0, dia, names[i]))
         return out
+
+
+_SEG_DEFAULTS = {"model": None, "root": None, "back": None, "envelope": False}
+
+
+def _forks(p: float, q: float, peak: float, at: float, sagging: bool, dia, name: str) -> LTBSegment:
+    """LTBSegment(p, q, "forks", q - p, peak, at, sagging, dia, combination=name), built without the frozen
+    dataclass's per-field checks (a section search makes many)."""
+    sg = object.__new__(LTBSegment)
+    d = sg.__dict__
+    d.update(a=p, b=q, kind="forks", L=q - p, peak=peak, location=at, sagging=sagging, diagram=dia,
+             combination=name)
+    d.update(_SEG_DEFAULTS)
+    return sg

@@ -223,7 +223,7 @@ class Shape:
     scaled block); with z_g or z_j the 2N problem is assembled from the cached blocks.
     """
 
-    __slots__ = ("fix_u", "fix_phi", "mu", "C0", "CtC", "P1", "Qs", "_terms")
+    __slots__ = ("fix_u", "fix_phi", "mu", "C0", "CtC", "P1", "Qs", "_terms", "_last")
 
     def __init__(self, fix_u: bool, fix_phi: bool, m_over_peak: np.ndarray) -> None:
         xi, w, u2, p, p1, p2, mu = _basis(fix_u, fix_phi)
@@ -235,9 +235,20 @@ class Shape:
         q = (p * wm[:, None]).T @ p2  # int m phi phi'' dxi
         self.Qs = q + q.T
         self._terms = None
+        self._last = None
 
     def mcr(self, L: float, EIz: float, GIt: float, EIw: float, zg: float = 0.0, zj: float = 0.0) -> float:
-        """Critical peak moment (N m) of the segment, as :func:`mcr_energy`."""
+        """Critical peak moment (N m) of the segment, as :func:`mcr_energy`. The last result is kept: a
+        member check asks for the same section's value twice (to rank the diagrams, then for C1)."""
+        key = (L, EIz, GIt, EIw, zg, zj)
+        last = self._last
+        if last is not None and last[0] == key:
+            return last[1]
+        val = self._mcr(L, EIz, GIt, EIw, zg, zj)
+        self._last = (key, val)
+        return val
+
+    def _mcr(self, L: float, EIz: float, GIt: float, EIw: float, zg: float, zj: float) -> float:
         r_phi = 1.0 / np.sqrt(GIt / L + EIw / L ** 3 * self.mu)
         if not (zg or zj):
             H = self.CtC * np.outer(r_phi, r_phi)
@@ -272,6 +283,24 @@ class Shape:
         return _factors(lambda g, j: self.mcr(L, EIz, GIt, EIw, g, j), L, EIz, GIt, EIw, zg, zj, k, kw)
 
     @classmethod
+    def combine2(cls, a: float, A: "Shape", b: float, U: "Shape") -> "Shape":
+        """``combine([(a, A), (b, U)])`` for two shapes of the same end conditions (the section search's
+        diagram A plus the self-weight term U), with the same arithmetic."""
+        if (A.fix_u, A.fix_phi) != (U.fix_u, U.fix_phi):
+            raise InputError("Shape.combine: the shapes have different end conditions (k, k_w)")
+        a, b = float(a), float(b)
+        new = cls.__new__(cls)
+        new.fix_u, new.fix_phi, new.mu = A.fix_u, A.fix_phi, A.mu
+        C0 = a * A.C0
+        if b:
+            C0 = C0 + b * U.C0
+        new.C0, new.CtC = C0, C0.T @ C0
+        new.P1 = new.Qs = None
+        new._terms = [(c, sh) for c, sh in ((a, A), (b, U)) if c]
+        new._last = None
+        return new
+
+    @classmethod
     def combine(cls, terms) -> "Shape":
         """The Shape of the diagram sum c_i m_i from the Shapes of the m_i (same end conditions): every
         block is linear in the diagram, so this is exact (``terms``: pairs (c_i, Shape_i)). Used by the
@@ -289,6 +318,7 @@ class Shape:
         new.C0, new.CtC = C0, C0.T @ C0
         new.P1 = new.Qs = None  # summed in mcr() only if z_g or z_j needs them
         new._terms = [(c, sh) for c, sh in terms if c]
+        new._last = None
         return new
 
 
