@@ -303,7 +303,12 @@ STEEL_BEAM = CalcSpec(
         Param("supports", "list", ["pin", "roller"],
               "support at each end and interior support: pin, roller, fixed, free",
               choices=SUPPORTS, min_items=2, max_items=9),
-    ) + _loads("5 kN/m", "10 kN/m") + _BRACING + _DEFL,
+    ) + _loads("5 kN/m", "10 kN/m") + _BRACING + (
+        Param("bearing_length", "optional_quantity", None,
+              "stiff bearing length at the supports and under point loads (web yielding and crippling / "
+              "EN 1993-1-5 transverse forces are checked there); none: framed connections, no bearing check",
+              dim="length", lo="0 mm", hi="2000 mm"),
+    ) + _DEFL,
     check=_beam_check,
 )
 

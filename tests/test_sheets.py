@@ -68,3 +68,34 @@ def test_compact_repeats_shows_each_derivation_once():
     assert out[0] is a and out[2] is c  # first of its kind and a different capacity keep their steps
     assert out[1].steps == () and out[1].ratio == 0.5 and out[1].demand == 200e3
     assert "capacity derived above (the panel at x = 1.5" in out[1].note
+
+
+def test_lintel_bearing_checks_at_padstones_and_under_the_point_load():
+    """L-108 (bearing_length 100 mm): EN 1993-1-5 section 6 at both padstones (type c) and under the floor
+    beam (type a), with F_Ed equal to the factored reaction / the factored point load of the diagram.
+    The point load is recomputed by hand with EN 1990 Eq. (6.10), recommended gamma_G 1.35, gamma_Q 1.5."""
+    s = _sheet("L-108.yaml")
+    tf = [r for r in s.design_results() if r.limit_state.startswith("Transverse force on the web")]
+    kinds = sorted(r.limit_state.split("(type ")[1][0] for r in tf)
+    assert kinds == ["a", "c", "c"]
+    (under,) = [r for r in tf if "(type a)" in r.limit_state]
+    assert under.demand == pytest.approx(1.35 * 45e3 + 1.5 * 38e3, rel=1e-9)
+    assert under.location == pytest.approx(1.4, rel=1e-12)
+    ends = [r for r in tf if "(type c)" in r.limit_state]
+    R = sorted(r.demand for r in ends)
+    assert R[-1] > R[0] > 0  # the point load sits nearer the left padstone
+
+
+def test_aisc_bearing_checks_only_when_a_bearing_length_is_given():
+    """AISC 360-22 J10.2/J10.3 at the reactions of B-101 when it bears 4 in on a wall; framed ends (the
+    default) get none."""
+    raw = yaml.safe_load((ROOT / "parameters" / "B-101.yaml").read_text())
+    raw.pop("calc")
+    raw.pop("expect", None)
+    framed = BeamSheet(validate("steel_beam", dict(raw), source="B-101"))
+    assert not [r for r in framed.design_results() if "J10" in r.clause]
+    raw["bearing_length"] = "4 in"
+    bearing = BeamSheet(validate("steel_beam", raw, source="B-101"))
+    j10 = [r for r in bearing.design_results() if "J10" in r.clause]
+    assert {"J10.2", "J10.3"} <= {c for r in j10 for c in ("J10.2", "J10.3") if c in r.clause}
+    assert all(r.location in (0.0, pytest.approx(28 * 0.3048)) for r in j10)

@@ -131,11 +131,6 @@ def deflection_checks(sheet) -> list:
     return out
 
 
-def _segments(L: float, braces: Sequence[float]) -> list[tuple[float, float]]:
-    pts = sorted({0.0, L, *[b for b in braces if 0.0 < b < L]})
-    return list(zip(pts[:-1], pts[1:]))
-
-
 def diagrams(sheet) -> dict:
     """The real moment diagram of every strength combination and pattern arrangement
     (:func:`calckit.analysis.arrangements`): Cb (AISC 360-22 F1-1) and C1 (EN 1993-1-1) need the shape of
@@ -150,90 +145,81 @@ def diagrams(sheet) -> dict:
 
 
 def member_checks(sheet, a=None) -> list:
-    """Design CheckResults of a beam or girder sheet from the design engine of its standard.
-
-    EN 1993-1-1: :func:`calckit.design.en1993.check_member` on the real diagram of every combination and
-    arrangement (:func:`diagrams`), with the lateral restraints and the stiffener spacing ``a``. AISC 360-22: its member check on the real diagram of every
-    combination and arrangement (:func:`diagrams`), else the provisional set of :func:`_provisional`.
-    """
+    """Design CheckResults of a beam or girder sheet from the design engine of its standard, on the real
+    diagram of every combination and arrangement (:func:`diagrams`), with the lateral restraints, the
+    stiffener spacing ``a`` and, when the parameters give a ``bearing_length``, the concentrated forces at
+    the supports and under the point loads (AISC 360-22 J10; EN 1993-1-5 section 6)."""
+    dia = diagrams(sheet)
+    brg = sheet.p.get("bearing_length")
     if not sheet.aisc:
         from ..design.en1993 import check_member
 
         restraints = "continuous" if not sheet.braces else sheet.braces
-        res = check_member(sheet.section, sheet.steel, analysis=diagrams(sheet), restraints=restraints, a=a)
+        forces = () if brg is None else _en_forces(sheet, dia, to_si_len(brg))
+        res = check_member(sheet.section, sheet.steel, analysis=dia, restraints=restraints, a=a, forces=forces)
         return list(res.checks)
-    cm = _aisc_member_check()
-    if cm is not None:
-        bracing = "continuous" if not sheet.braces else sheet.braces
-        res = cm(sheet.section, sheet.steel, diagrams(sheet), method=sheet.method, bracing=bracing,
-                 stiffeners=None if a is None else f"{a!r} m")
-        return list(res.checks)
-    return _provisional(sheet)
+    from ..design.aisc360 import check_member
+
+    bracing = "continuous" if not sheet.braces else sheet.braces
+    bearings = () if brg is None else _aisc_bearings(sheet, to_si_len(brg))
+    res = check_member(sheet.section, sheet.steel, dia, method=sheet.method, bracing=bracing,
+                       stiffeners=None if a is None else f"{a!r} m", bearing=bearings)
+    return list(res.checks)
 
 
-def _aisc_member_check():
-    try:
-        from ..design.aisc360 import check_member
-    except ImportError:
-        return None
-    return check_member
+def to_si_len(v) -> float:
+    from ..units import to_si
+
+    return to_si(v, "length", "bearing_length")
 
 
-def _provisional(sheet) -> list:
-    import numpy as np
+def _bearing_points(sheet):
+    """(x, kind, name) of every support that is not free and of every point load away from a support."""
+    from ..units import fmt, to_si
 
-    env = sheet.env
-    x = np.asarray(env.x)
-    L = float(x[-1])
+    nodes = list(sheet.beam.layout.nodes)
+    kinds = [s.kind for s in sheet.beam.layout.supports]
+    L = nodes[-1]
     out = []
-    segs = _segments(L, sheet.braces) if sheet.braces else [(0.0, L)]
-    for a, b in segs:
-        m = (x >= a - 1e-9) & (x <= b + 1e-9)
-        Mmax, Mmin = float(np.max(env.M_max[m])), float(np.min(env.M_min[m]))
-        Mu = Mmax if Mmax >= -Mmin else Mmin
-        Lb = 0.0 if not sheet.braces else b - a
-        comp = "top" if Mu >= 0 else "bottom"
-        if sheet.aisc:
-            from ..design.aisc360.flexure import flexure
+    for i, (x, k) in enumerate(zip(nodes, kinds)):
+        if k != "free":
+            out.append((x, "end" if i in (0, len(nodes) - 1) else "interior", f"support {i + 1}"))
+    for pl in sheet.p.get("point_loads") or []:
+        x = to_si(pl["x"], "length")
+        if all(abs(x - n) > 1e-9 * L for n in nodes) and all(abs(x - o[0]) > 1e-9 * L for o in out):
+            out.append((x, "load", f"point load at x = {fmt(x, 'span', sheet.system)}"))
+    return out
 
-            r = flexure(sheet.section, sheet.steel, Lb=Lb, Cb=1.0, method=sheet.method, compression=comp,
-                        Mu=f"{abs(Mu)!r} N*m")
+
+def _aisc_bearings(sheet, lb: float) -> list:
+    """AISC bearings: reactions bear on the bottom flange, point loads on the top flange; the force is
+    taken from the jump of each diagram's shear at the point (the check's own rule)."""
+    from ..design.aisc360 import bearing
+
+    return [bearing(f"{x!r} m", lb=f"{lb!r} m", flange="top" if kind == "load" else "bottom", name=name)
+            for x, kind, name in _bearing_points(sheet)]
+
+
+def _en_forces(sheet, dia, ss: float) -> list:
+    """EN 1993-1-5 transverse forces: a reaction at an end support is load type (c) with c = 0, at an
+    interior support type (a); a point load on the top flange type (a) with F the largest jump of the
+    shear in any diagram (EN 1993-1-5 Figure 6.1)."""
+    out = []
+    for x, kind, name in _bearing_points(sheet):
+        if kind == "load":
+            F = max((abs(float(r.V_si(x, "left") - r.V_si(x, "right"))) for r in dia.values()),
+                    default=0.0)
+            if F <= 0:
+                continue
+            out.append({"x": x, "ss": ss, "F": F, "load_type": "a", "flange": "top", "name": name})
         else:
-            from ..design.en1993.bending import bending
-
-            r = bending(sheet.section, sheet.steel, M_Ed=f"{Mu!r} N*m")
-        from dataclasses import replace
-
-        out.append(replace(r, segment=(a, b), note=(r.note + "; " if r.note else "") +
-                           f"segment {a:.4g} m to {b:.4g} m, Cb = 1.0 (provisional)"))
-    V = float(max(np.max(np.abs(env.V_max)), np.max(np.abs(env.V_min))))
-    if sheet.aisc:
-        from ..design.aisc360.shear import shear
-
-        out.append(shear(sheet.section, sheet.steel, method=sheet.method, Vu=f"{V!r} N"))
-    else:
-        from ..design.en1993.shear import shear
-
-        out.append(shear(sheet.section, sheet.steel, V_Ed=f"{V!r} N"))
+            out.append({"x": x, "ss": ss, "F": None, "load_type": "c" if kind == "end" else "a",
+                        "c": 0.0 if kind == "end" else None, "flange": "bottom", "name": name})
     return out
 
 
 def girder_checks(sheet) -> list:
-    """Design CheckResults of a plate girder sheet: as :func:`member_checks` with the stiffener spacing,
-    plus (AISC, provisional path) shear with ``a`` and the transverse stiffener checks."""
-    import numpy as np
+    """Design CheckResults of a plate girder sheet: as :func:`member_checks` with the stiffener spacing."""
+    return member_checks(sheet, a=sheet.a)
 
-    a = sheet.a
-    if not sheet.aisc or _aisc_member_check() is not None:
-        return member_checks(sheet, a=a)
-    out = [r for r in _provisional(sheet) if "shear" not in r.limit_state.lower()]
-    env = sheet.env
-    V = float(max(np.max(np.abs(env.V_max)), np.max(np.abs(env.V_min))))
-    from ..design.aisc360.shear import shear, transverse_stiffener
 
-    out.append(shear(sheet.section, sheet.steel, a=None if a is None else f"{a!r} m", method=sheet.method,
-                     Vu=f"{V!r} N"))
-    if a is not None:
-        out += list(transverse_stiffener(sheet.section, sheet.steel, f"{a!r} m", f"{V!r} N",
-                                         method=sheet.method))
-    return out

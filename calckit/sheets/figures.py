@@ -5,6 +5,8 @@ import html as _h
 import math
 from typing import Sequence
 
+from ..render.latex import ratio_text
+
 __all__ = ["utilisation_bars"]
 
 
@@ -22,7 +24,7 @@ class utilisation_bars:
             ok = r is not None and math.isfinite(r)
             v = min(float(r), 1.5) if ok else 1.5
             w = 100.0 * v / 1.5
-            txt = f"{r:.2f}" if ok else "inf"
+            txt = ratio_text(float(r)) if ok else "inf"  # rounded up, as in the checks
             fill = "#000" if (not ok or r > 1.0) else "#999"
             rows.append(f'<tr><td>{_h.escape(n)}</td><td style="width:22em"><div style="position:relative;'
                         f'height:0.9em;border-left:1px solid #000"><div style="width:{w:.1f}%;height:100%;'
@@ -36,4 +38,4 @@ class utilisation_bars:
         return f'<div class="ck-block ck-util">{self.html()}</div>'
 
     def __repr__(self) -> str:  # no memory address: records must be byte-identical between reruns
-        return "Utilisation: " + ", ".join(f"{n} {r:.2f}" for n, r in zip(self.names, self.ratios))
+        return "Utilisation: " + ", ".join(f"{n} {ratio_text(float(r))}" for n, r in zip(self.names, self.ratios))
