@@ -26,8 +26,12 @@ def summary_text(rows: Sequence[Row]) -> str:
     head = ["member", "calc", "section", "governing check", "ratio", "status"]
     body = [_cells(r)[:6] for r in rows]
     w = [max([len(h)] + [len(b[i]) for b in body]) for i, h in enumerate(head)]
-    w[3] = min(w[3], 48)
-    fmt = lambda cells: "  ".join(str(c)[:w[i]].ljust(w[i]) if i != 4 else str(c).rjust(w[i])
+    w[2], w[3] = min(w[2], 40), min(w[3], 64)
+
+    def cut(text: str, n: int) -> str:  # a cut cell ends in "..." so it is not read as the whole text
+        return text if len(text) <= n else text[:n - 3].rstrip() + "..."
+
+    fmt = lambda cells: "  ".join(cut(str(c), w[i]).ljust(w[i]) if i != 4 else str(c).rjust(w[i])
                                   for i, c in enumerate(cells))
     lines = [fmt(head), "  ".join("-" * x for x in w)] + [fmt(b) for b in body]
     for r in rows:
