@@ -148,6 +148,9 @@ _LOAD_FIELDS = (
     Param("case", "choice", "D", "load case", choices=("D", "L", "Lr", "S")),
     Param("P", "quantity", "0 kN", "force, downward positive", dim="force", lo="-20000 kN", hi="20000 kN"),
     Param("x", "quantity", "0 m", "position from the left end", dim="length", lo="0 m", hi="200 m"),
+    Param("bearing", "optional_quantity", None, "stiff bearing length under the load, when it bears on the "
+          "top flange (web bearing is checked there); none: framed in, no bearing check", dim="length",
+          lo="0 mm", hi="2000 mm"),
 )
 
 _DESIGN = (
@@ -169,7 +172,7 @@ def _loads(dead: str, live: str) -> tuple:
               hi="2000 kN/m"),
         Param("snow_udl", "quantity", "0 kN/m", "snow load, uniform", dim="line_load", lo="0 kN/m",
               hi="2000 kN/m"),
-        Param("point_loads", "records", [], "point loads: list of {case: D|L|Lr|S, P: force, x: from left end}",
+        Param("point_loads", "records", [], "point loads: list of {case: D|L|Lr|S, P: force, x: from left end, bearing: optional}",
               fields=_LOAD_FIELDS),
         Param("self_weight", "flag", True, "add the member's self-weight to the dead load"),
         Param("live_category", "choice", "B", "EN 1990 only: imposed-load category of EN 1991-1-1 (A to H)",
@@ -184,12 +187,41 @@ _BRACING = (
           dim="length", lo="0 m", hi="200 m"),
 )
 
+_BEARING = (
+    Param("bearing_length", "optional_quantity", None,
+          "stiff bearing length at the supports (web bearing is checked at the reactions: AISC J10, "
+          "EN 1993-1-5 section 6); none: framed end connections, no bearing check", dim="length",
+          lo="0 mm", hi="2000 mm"),
+    Param("bearing_stiffener_b", "optional_quantity", None,
+          "AISC only: width of each bearing stiffener of the pair at the supports (none: no stiffeners; a "
+          "pair is then sized where the web needs one)", dim="length", lo="10 mm", hi="1000 mm"),
+    Param("bearing_stiffener_t", "optional_quantity", None,
+          "AISC only: thickness of the bearing stiffeners at the supports", dim="length", lo="3 mm",
+          hi="100 mm"),
+)
+
 _DEFL = (
     Param("defl_limit_live", "number", 360.0, "live-load deflection limit: span / this number",
           lo=60.0, hi=2000.0),
     Param("defl_limit_total", "number", 240.0, "total-load deflection limit: span / this number",
           lo=60.0, hi=2000.0),
 )
+
+
+def _stiffener_check(v: Mapping[str, Any]) -> list[tuple[str, str]]:
+    b, t = v.get("bearing_stiffener_b"), v.get("bearing_stiffener_t")
+    if b is None and t is None:
+        return []
+    if b is None or t is None:
+        miss = "bearing_stiffener_b" if b is None else "bearing_stiffener_t"
+        return [(miss, "got none; expected both the width and the thickness of the bearing stiffeners")]
+    if not str(v.get("standard", "")).upper().startswith("AISC"):
+        return [("bearing_stiffener_b", "bearing stiffeners are checked to AISC 360-22 J10.8 only; the "
+                 "EN 1993-1-5 bearing stiffener design is not implemented (leave both empty)")]
+    if v.get("bearing_length") is None:
+        return [("bearing_length", "got none; expected the bearing length at the supports where the bearing "
+                 "stiffeners are")]
+    return []
 
 
 def _grade_check(v: Mapping[str, Any]) -> list[tuple[str, str]]:
@@ -229,7 +261,8 @@ def _beam_check(v: Mapping[str, Any]) -> list[tuple[str, str]]:
     from .units import to_si
 
     lightest = isinstance(v["section"], str) and v["section"].strip().lower() == "lightest"
-    out: list[tuple[str, str]] = _grade_check(v) + ([] if lightest else _section_check(v["section"], "section"))
+    out: list[tuple[str, str]] = (_grade_check(v) + _stiffener_check(v) +
+                                  ([] if lightest else _section_check(v["section"], "section")))
     spans, sup = v.get("spans"), v.get("supports")
     if isinstance(spans, list) and isinstance(sup, list) and len(sup) != len(spans) + 1:
         out.append(("supports", f"got {len(sup)} supports for {len(spans)} span(s); expected "
@@ -255,7 +288,7 @@ def _beam_check(v: Mapping[str, Any]) -> list[tuple[str, str]]:
 def _girder_check(v: Mapping[str, Any]) -> list[tuple[str, str]]:
     from .units import to_si
 
-    out = _grade_check(v)
+    out = _grade_check(v) + _stiffener_check(v)
     try:
         L = to_si(v["span"], "span")
     except Exception:
@@ -303,12 +336,7 @@ STEEL_BEAM = CalcSpec(
         Param("supports", "list", ["pin", "roller"],
               "support at each end and interior support: pin, roller, fixed, free",
               choices=SUPPORTS, min_items=2, max_items=9),
-    ) + _loads("5 kN/m", "10 kN/m") + _BRACING + (
-        Param("bearing_length", "optional_quantity", None,
-              "stiff bearing length at the supports and under point loads (web yielding and crippling / "
-              "EN 1993-1-5 transverse forces are checked there); none: framed connections, no bearing check",
-              dim="length", lo="0 mm", hi="2000 mm"),
-    ) + _DEFL,
+    ) + _loads("5 kN/m", "10 kN/m") + _BRACING + _BEARING + _DEFL,
     check=_beam_check,
 )
 
@@ -336,7 +364,7 @@ PLATE_GIRDER = CalcSpec(
               "clear spacing of intermediate transverse stiffeners (0: none)", dim="length", lo="0 m",
               hi="80 m"),
         Param("electrode", "text", "E70", "AISC only: weld electrode classification, e.g. 'E70'"),
-    ) + _loads("40 kN/m", "30 kN/m") + _BRACING + _DEFL,
+    ) + _loads("40 kN/m", "30 kN/m") + _BRACING + _BEARING + _DEFL,
     check=_girder_check,
 )
 

@@ -43,8 +43,8 @@ NOTEBOOKS = {
                  "VQ/I along the span.",
         "setup": "from calckit.sheets import plate_girder\ncalc = plate_girder(globals())\n"
                  "calc.show(\"header\")",
-        "parts": ["loads", "analysis", "proportions", "classification", "bending", "shear", "welds",
-                  "deflection", "summary"],
+        "parts": ["loads", "analysis", "proportions", "classification", "bending", "shear", "bearing",
+                  "welds", "deflection", "summary"],
     },
     "section_properties": {
         "title": "# Built-up section properties\nA section of plates and rolled shapes placed freely "

@@ -437,3 +437,22 @@ def test_deflection_bad_input():
         A.deflection("1 in", "10 ft", n=-5)
     with pytest.raises(UnitsError, match="delta"):
         A.deflection(1.0, "10 ft")
+
+
+def test_given_stiffeners_that_pass_take_the_force_from_the_web(w18):
+    """J10.2/J10.3: where the required strength exceeds the web's, "a pair of transverse stiffeners ... shall
+    be provided" (AISC 360-22 J10.2, J10.3; J10.7, J10.8). With a given pair that passes its own checks the
+    failing web checks stay on record without a ratio; the pair's checks govern. A given pair that fails
+    leaves the web checks failing."""
+    bare = A.concentrated(w18, "A992", lb="3 in", x_end=0, Ru="120 kip")
+    failing = {r.limit_state for r in bare if r.passed is False}
+    assert failing  # the web alone fails (test above)
+    good = A.concentrated(w18, "A992", lb="3 in", x_end=0, Ru="120 kip", stiffener=("3.5 in", "0.5 in"))
+    web = [r for r in good if r.limit_state in failing]
+    pair = [r for r in good if r.limit_state not in {b.limit_state for b in bare}]
+    assert pair and all(r.passed for r in pair)
+    assert web and all(r.passed is None and r.ratio is None and r.data["resisted_by_stiffeners"] for r in web)
+    assert all(r.demand == pytest.approx(120 * KIP, rel=REL) for r in web)  # the demand is kept
+    thin = A.concentrated(w18, "A992", lb="3 in", x_end=0, Ru="120 kip", stiffener=("1 in", "0.125 in"))
+    assert any(r.passed is False for r in thin if r.limit_state not in failing)  # the pair itself fails
+    assert all(r.passed is False for r in thin if r.limit_state in failing)

@@ -95,6 +95,15 @@ BAD_CASES = [
     ("not-a-quantity", GOOD.replace("live_udl: 0.8 kip/ft", "live_udl: lots"), ["live_udl", "lots"]),
     ("unknown-section", GOOD.replace("W18X50", "W99X999"), ["m.yaml:4", "section", "W99X999", "catalog"]),
     ("unknown-grade", GOOD.replace("A992", "S999"), ["m.yaml:5", "grade", "S999", "steel grade"]),
+    ("stiffener-half-given", GOOD + "bearing_length: 4 in\nbearing_stiffener_b: 3 in\n",
+     ["bearing_stiffener_t", "both the width and the thickness"]),
+    ("stiffener-without-bearing", GOOD + "bearing_stiffener_b: 3 in\nbearing_stiffener_t: 0.5 in\n",
+     ["bearing_length", "bearing stiffeners are"]),
+    ("stiffener-en", GOOD.replace("AISC 360-22", "EN 1993-1-1").replace("W18X50", "IPE 300").replace(
+        "A992", "S355") + "bearing_length: 100 mm\nbearing_stiffener_b: 80 mm\nbearing_stiffener_t: 10 mm\n",
+     ["bearing_stiffener_b", "AISC 360-22 J10.8 only", "not implemented"]),
+    ("point-load-bearing-unit", GOOD + "point_loads:\n  - {case: D, P: 10 kip, x: 4 ft, bearing: 4}\n",
+     ["point_loads", "bearing", "bare number"]),
 ]
 
 

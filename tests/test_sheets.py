@@ -99,3 +99,40 @@ def test_aisc_bearing_checks_only_when_a_bearing_length_is_given():
     j10 = [r for r in bearing.design_results() if "J10" in r.clause]
     assert {"J10.2", "J10.3"} <= {c for r in j10 for c in ("J10.2", "J10.3") if c in r.clause}
     assert all(r.location in (0.0, pytest.approx(28 * 0.3048)) for r in j10)
+
+
+def test_girder_bearing_stiffeners_take_the_reactions():
+    """TG-202 bears on 8 in plates with a given pair of 6.5 x 3/4 in bearing stiffeners at each support:
+    the web crippling that the 7/16 in web alone fails (AISC 360-22 J10.3) is resisted by the pair (J10.7,
+    J10.8), whose checks pass; the girder passes and the web record carries no ratio."""
+    from calckit.sheets.girder import GirderSheet
+
+    raw = yaml.safe_load((ROOT / "parameters" / "TG-202.yaml").read_text())
+    raw.pop("calc")
+    raw.pop("expect", None)
+    s = GirderSheet(validate("plate_girder", raw, source="TG-202"))
+    res = s.design_results()
+    crip = [r for r in res if "crippling" in r.limit_state]
+    assert len(crip) == 2 and all(r.ratio is None and r.demand > r.capacity for r in crip)
+    pairs = [r for r in res if r.limit_state.startswith("Bearing stiffener pair")]
+    assert len(pairs) == 6 and all(r.passed for r in pairs)  # proportions, column, bearing at each end
+    assert all(r.passed is not False for r in res)
+    shown = s.strength_checks()
+    assert not any("crippling" in c.name for c in shown)  # the summary lists rated checks only
+    (part,) = s._bearing()
+    assert "bearing stiffeners" in part.title
+
+
+def test_point_load_bearing_only_where_given():
+    """A point load checked for web bearing only when its record gives a bearing (framed-in loads are not)."""
+    from calckit.sheets.design import bearing_points
+
+    raw = yaml.safe_load((ROOT / "parameters" / "L-108.yaml").read_text())
+    raw.pop("calc")
+    s = BeamSheet(validate("steel_beam", dict(raw), source="L-108"))
+    kinds = [(k, round(lb, 6)) for _, lb, k, _ in bearing_points(s)]
+    assert kinds == [("end", 0.15), ("end", 0.15), ("load", 0.1)]
+    for pl in raw["point_loads"]:
+        pl.pop("bearing")
+    s2 = BeamSheet(validate("steel_beam", raw, source="L-108"))
+    assert [k for _, _, k, _ in bearing_points(s2)] == ["end", "end"]

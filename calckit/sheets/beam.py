@@ -10,7 +10,7 @@ from __future__ import annotations
 
 from .common import CalcSheet
 from ..units import fmt
-from .design import brace_points, is_aisc, to_render
+from .design import brace_points, is_aisc, is_rated, to_render
 
 __all__ = ["BeamSheet", "build_beam", "CASE_TEXT"]
 
@@ -288,7 +288,7 @@ class BeamSheet(CalcSheet):
         return self._design
 
     def strength_checks(self) -> list:
-        return [to_render(c, self.system) for c in self.design_results()]
+        return [to_render(c, self.system) for c in self.design_results() if is_rated(c)]
 
     def deflection_checks(self) -> list:
         if "_defl" not in self.__dict__:

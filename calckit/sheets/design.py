@@ -45,6 +45,8 @@ def to_render(cr, system: str = "SI") -> Any:
 
     if isinstance(cr, Check):
         return cr
+    if cr.ratio is None and cr.demand is not None and cr.data.get("resisted_by_stiffeners"):
+        return _resisted(cr, system)
     steps = []
     for s in cr.steps or ():
         if isinstance(s, Check):  # a record that already is a check: keep the steps that led to it
@@ -63,6 +65,24 @@ def to_render(cr, system: str = "SI") -> Any:
         note = (note + "; " if note else "") + f"at x = {fmt(cr.location, 'span', system)}"
     return check(name, (demand, cr.dim), (float(cr.capacity), cr.dim), reference=cr.clause, steps=steps,
                  note=note)
+
+
+def _resisted(cr, system: str):
+    """A web check exceeded by the web alone where the given stiffeners take the force: a statement of the
+    comparison, not a check (the stiffener pair's own checks follow it)."""
+    from ..render import decide
+    from ..units import fmt
+
+    where = "" if cr.location is None else f" at x = {fmt(cr.location, 'span', system)}"
+    text = (f"{cr.limit_state}{where}: required {fmt(abs(cr.demand), cr.dim, system)} > "
+            f"{fmt(cr.capacity, cr.dim, system)} of the web alone; the given stiffener pair resists the force "
+            "(checked below)")
+    return decide(text, holds=False, reference=cr.clause, note=cr.note)
+
+
+def is_rated(cr) -> bool:
+    """The result is a check with a ratio (not a record kept for information only)."""
+    return cr.ratio is not None or cr.demand is None
 
 
 def compact_repeats(results, system: str = "SI", what: str | None = None) -> list:
@@ -147,65 +167,67 @@ def diagrams(sheet) -> dict:
 def member_checks(sheet, a=None) -> list:
     """Design CheckResults of a beam or girder sheet from the design engine of its standard, on the real
     diagram of every combination and arrangement (:func:`diagrams`), with the lateral restraints, the
-    stiffener spacing ``a`` and, when the parameters give a ``bearing_length``, the concentrated forces at
-    the supports and under the point loads (AISC 360-22 J10; EN 1993-1-5 section 6)."""
+    stiffener spacing ``a`` and the concentrated forces where the parameters give a bearing length: at
+    the supports (``bearing_length``) and under point loads that bear on the flange (their ``bearing``)
+    (AISC 360-22 J10; EN 1993-1-5 section 6)."""
     dia = diagrams(sheet)
-    brg = sheet.p.get("bearing_length")
+    points = bearing_points(sheet)
     if not sheet.aisc:
         from ..design.en1993 import check_member
 
         restraints = "continuous" if not sheet.braces else sheet.braces
-        forces = () if brg is None else _en_forces(sheet, dia, to_si_len(brg))
-        res = check_member(sheet.section, sheet.steel, analysis=dia, restraints=restraints, a=a, forces=forces)
+        res = check_member(sheet.section, sheet.steel, analysis=dia, restraints=restraints, a=a,
+                           forces=_en_forces(points, dia))
         return list(res.checks)
-    from ..design.aisc360 import check_member
+    from ..design.aisc360 import bearing, check_member
 
     bracing = "continuous" if not sheet.braces else sheet.braces
-    bearings = () if brg is None else _aisc_bearings(sheet, to_si_len(brg))
+    sb, st = sheet.p.get("bearing_stiffener_b"), sheet.p.get("bearing_stiffener_t")
+    pair = None if sb is None or st is None else (sb, st)
+    bearings = [bearing(f"{x!r} m", lb=f"{lb!r} m", flange="top" if kind == "load" else "bottom", name=name,
+                        stiffener=None if kind == "load" else pair)
+                for x, lb, kind, name in points]
     res = check_member(sheet.section, sheet.steel, dia, method=sheet.method, bracing=bracing,
                        stiffeners=None if a is None else f"{a!r} m", bearing=bearings)
     return list(res.checks)
 
 
-def to_si_len(v) -> float:
-    from ..units import to_si
-
-    return to_si(v, "length", "bearing_length")
-
-
-def _bearing_points(sheet):
-    """(x, kind, name) of every support that is not free and of every point load away from a support."""
+def bearing_points(sheet) -> list[tuple[float, float, str, str]]:
+    """(x, bearing length, kind, name) of the concentrated forces to check on the web: every support that
+    is not free when ``bearing_length`` is given (kind "end" or "interior"), and every point-load
+    position away from a support where a load has a ``bearing`` (kind "load"; the longest given there)."""
     from ..units import fmt, to_si
 
     nodes = list(sheet.beam.layout.nodes)
     kinds = [s.kind for s in sheet.beam.layout.supports]
     L = nodes[-1]
     out = []
-    for i, (x, k) in enumerate(zip(nodes, kinds)):
-        if k != "free":
-            out.append((x, "end" if i in (0, len(nodes) - 1) else "interior", f"support {i + 1}"))
-    for pl in sheet.p.get("point_loads") or []:
+    brg = sheet.p.get("bearing_length")
+    if brg is not None:
+        lb = to_si(brg, "length", "bearing_length")
+        for i, (x, k) in enumerate(zip(nodes, kinds)):
+            if k != "free":
+                out.append((x, lb, "end" if i in (0, len(nodes) - 1) else "interior", f"support {i + 1}"))
+    at: dict[float, float] = {}
+    for i, pl in enumerate(sheet.p.get("point_loads") or []):
+        if pl.get("bearing") is None:
+            continue
         x = to_si(pl["x"], "length")
-        if all(abs(x - n) > 1e-9 * L for n in nodes) and all(abs(x - o[0]) > 1e-9 * L for o in out):
-            out.append((x, "load", f"point load at x = {fmt(x, 'span', sheet.system)}"))
+        if any(abs(x - n) <= 1e-9 * L for n in nodes):
+            continue  # over a support: the reaction's bearing governs
+        key = next((k for k in at if abs(k - x) <= 1e-9 * L), x)
+        at[key] = max(at.get(key, 0.0), to_si(pl["bearing"], "length", f"point_loads[{i}].bearing"))
+    for x in sorted(at):
+        out.append((x, at[x], "load", f"point load at x = {fmt(x, 'span', sheet.system)}"))
     return out
 
 
-def _aisc_bearings(sheet, lb: float) -> list:
-    """AISC bearings: reactions bear on the bottom flange, point loads on the top flange; the force is
-    taken from the jump of each diagram's shear at the point (the check's own rule)."""
-    from ..design.aisc360 import bearing
-
-    return [bearing(f"{x!r} m", lb=f"{lb!r} m", flange="top" if kind == "load" else "bottom", name=name)
-            for x, kind, name in _bearing_points(sheet)]
-
-
-def _en_forces(sheet, dia, ss: float) -> list:
+def _en_forces(points, dia) -> list:
     """EN 1993-1-5 transverse forces: a reaction at an end support is load type (c) with c = 0, at an
     interior support type (a); a point load on the top flange type (a) with F the largest jump of the
     shear in any diagram (EN 1993-1-5 Figure 6.1)."""
     out = []
-    for x, kind, name in _bearing_points(sheet):
+    for x, ss, kind, name in points:
         if kind == "load":
             F = max((abs(float(r.V_si(x, "left") - r.V_si(x, "right"))) for r in dia.values()),
                     default=0.0)

@@ -11,7 +11,7 @@ import math
 
 from ..units import fmt
 from .beam import BeamSheet
-from .design import to_render
+from .design import is_rated, to_render
 
 __all__ = ["GirderSheet"]
 
@@ -24,7 +24,8 @@ class GirderSheet(BeamSheet):
     def register_parts(self):
         for name, fn in (("loads", self._loads), ("analysis", self._analysis),
                          ("proportions", self._proportions), ("classification", self._classification),
-                         ("bending", self._bending), ("shear", self._shear), ("welds", self._welds),
+                         ("bending", self._bending), ("shear", self._shear), ("bearing", self._bearing),
+                         ("welds", self._welds),
                          ("deflection", self._deflection), ("summary", self._summary)):
             self.part(name, fn)
 
@@ -93,15 +94,26 @@ class GirderSheet(BeamSheet):
         return [Section("Classification of the plates", list(c.steps), number="4", intro=intro,
                         system=self.system)]
 
+    @staticmethod
+    def _part_of(r) -> str:
+        """Which part of the sheet shows a design result: "bearing" (concentrated forces on the web and
+        bearing stiffeners), "shear" (web shear, intermediate stiffeners) or "bending"."""
+        ls = r.limit_state.lower()
+        if ls.startswith(("concentrated force", "bearing stiffener", "transverse force")):
+            return "bearing"
+        if "shear" in ls or "stiffener" in ls:
+            return "shear"
+        return "bending"
+
     def _is_shear(self, r) -> bool:
-        return "shear" in r.limit_state.lower() or "stiffener" in r.limit_state.lower()
+        return self._part_of(r) == "shear"
 
     def _bending(self):
         from ..render import Section
 
         from .design import compact_repeats
 
-        bend = compact_repeats([r for r in self.design_results() if not self._is_shear(r)], self.system)
+        bend = compact_repeats([r for r in self.design_results() if self._part_of(r) == "bending"], self.system)
         recs = [to_render(r, self.system) for r in bend]
         return [Section("Bending", recs, number="5", system=self.system)]
 
@@ -116,6 +128,21 @@ class GirderSheet(BeamSheet):
         intro = (f"Intermediate transverse stiffeners at a = {fmt(self.a, 'span', self.system)}." if self.a else
                  "No intermediate transverse stiffeners (stiffeners at the supports only).")
         return [Section("Shear, with the transverse stiffener spacing", recs, number="6", intro=intro,
+                        system=self.system)]
+
+    def _bearing(self):
+        from ..render import Section
+
+        from .design import compact_repeats
+
+        res = [r for r in self.design_results() if self._part_of(r) == "bearing"]
+        if not res:
+            return [Section("Concentrated forces on the web", [], number="6a", system=self.system,
+                            intro="No bearing length given (framed end connections): the web is not checked "
+                                  "for concentrated forces. Give bearing_length (and the point loads' bearing) "
+                                  "where the girder bears on its supports or carries loads on a flange.")]
+        recs = [to_render(r, self.system) for r in compact_repeats(res, self.system)]
+        return [Section("Concentrated forces on the web and bearing stiffeners", recs, number="6a",
                         system=self.system)]
 
     def weld_design(self):
@@ -152,5 +179,5 @@ class GirderSheet(BeamSheet):
 
     def strength_checks(self) -> list:
         wd = self.weld_design()
-        return [to_render(c, self.system) for c in self.design_results()] + [to_render(j.check, self.system) for j in wd.junctions
+        return [to_render(c, self.system) for c in self.design_results() if is_rated(c)] + [to_render(j.check, self.system) for j in wd.junctions
                                                                  if j.check is not None]

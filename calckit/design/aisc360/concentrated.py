@@ -479,10 +479,27 @@ def forces(p, mat, lb, x_end, tf, bf, method, calc, Ru=None, *, tension=False, w
             R2 = None if Ru is None else max(Ru, Ru if opposite is True else opposite)
             out.append(wcb(p, mat, x_end, method, calc, R2, location=location, **kw))
     if (stiffeners or stiffener is not None) and Ru is not None:
-        out.extend(_stiffeners.for_force(p, mat, tuple(out), Ru, x_end, tf, bf, method, calc, tension=tension,
-                             stiffener=stiffener, location=location, label=label, combination=combination,
-                             flange=flange))
+        st = _stiffeners.for_force(p, mat, tuple(out), Ru, x_end, tf, bf, method, calc, tension=tension,
+                                   stiffener=stiffener, location=location, label=label, combination=combination,
+                                   flange=flange)
+        if stiffener is not None and st and all(r.passed is not False for r in st):
+            out = [_resisted_by_stiffeners(r) for r in out]
+        out.extend(st)
     return tuple(out)
+
+
+def _resisted_by_stiffeners(r: CheckResult) -> CheckResult:
+    """A web check that the web alone fails, where the given stiffener pair passes its own checks: the
+    force is resisted by web and stiffeners (J10.2, J10.3, J10.4, J10.5: "a pair of transverse stiffeners
+    ... shall be provided"; J10.7, J10.8), so the web check is kept for the record without a ratio
+    (``ratio`` and ``passed`` None) and the stiffener checks govern."""
+    from dataclasses import replace
+
+    if r.passed is not False:
+        return r
+    note = ((r.note + "; ") if r.note else "") + ("the web alone is exceeded; the force is resisted with the "
+                                                   "stiffener pair checked below (AISC 360-22 J10.7, J10.8)")
+    return replace(r, ratio=None, passed=None, note=note, data=dict(r.data, resisted_by_stiffeners=True))
 
 
 # ------------------------------------------------------------------------------------ member level
