@@ -1,6 +1,10 @@
-"""Command line: ``calckit run``, ``calckit demo``, ``calckit verify``, ``calckit check``, ``calckit pick``
-(also ``python -m calckit ...``). A thin layer over :func:`calckit.batch.run`, :func:`calckit.record.verify`
-and :func:`calckit.pick`.
+"""Command line: ``calckit run``, ``calckit demo``, ``calckit verify``, ``calckit check``, ``calckit pick``,
+``calckit schedule expand`` (also ``python -m calckit ...``). A thin layer over :func:`calckit.batch.run`,
+:func:`calckit.record.verify`, :func:`calckit.pick` and :func:`calckit.schedule.expand`.
+
+A ``.csv`` path given to ``run`` or ``check`` is a beam schedule (:mod:`calckit.schedule`): ``run`` expands
+it into ``<schedule stem>/`` beside it (created if missing; a member file that differs from its row is
+never overwritten) and runs those member files; ``check`` validates its rows without writing anything.
 
 Exit codes
 ----------
@@ -10,9 +14,14 @@ run / demo / check:
     1  some member fails a design check
     2  some calc could not run: bad input (file and parameter named) or an error while executing;
        the other members still run
+       (run, check: also a bad schedule, or one whose member file differs from its row; no member of
+       that schedule runs, the other paths still do)
 pick:
     0  a section passes (the lightest is printed), 1 no catalog section passes (the closest are listed),
     2  bad input
+schedule expand:
+    0  every member file written or left unchanged (identical), 2 bad input or a member file that differs
+       from its row (nothing is written then)
 verify:
     0  same: every number of the results payload agrees (relative tolerance 1e-9) and every hash matches
     1  a difference (each one is listed)
@@ -47,6 +56,7 @@ def build_parser() -> argparse.ArgumentParser:
                "                    1 some member fails a check,\n"
                "                    2 some calc could not run (bad input or an error)\n"
                "  pick:             0 a section passes, 1 none passes, 2 bad input\n"
+               "  schedule expand:  0 member files written or unchanged, 2 bad input or a conflict\n"
                "  verify:           0 same, 1 differences, 2 could not verify\n\n"
                "A design aid only: results must be reviewed, and the calculation sealed, by a licensed or\n"
                "chartered engineer; local codes, national annexes and project specifications govern.")
@@ -63,7 +73,7 @@ def build_parser() -> argparse.ArgumentParser:
                        help="start every kernel as a plain python process (slower; see calckit.kernels)")
 
     r = sub.add_parser("run", help="run parameter files (or folders of them) and archive the records")
-    r.add_argument("paths", nargs="+", help="parameter files (.yaml) or folders")
+    r.add_argument("paths", nargs="+", help="parameter files (.yaml), folders, or beam schedules (.csv)")
     batch_opts(r)
     d = sub.add_parser("demo", help="run the demo project in parameters/ into outputs/")
     batch_opts(d)
@@ -74,10 +84,41 @@ def build_parser() -> argparse.ArgumentParser:
     v.add_argument("records", nargs="+", help="archived .ipynb files")
     v.add_argument("--root", default=None, help="archive root holding manifest.jsonl "
                                                 "(default: three levels above the record)")
+    s = sub.add_parser("schedule", help="beam schedules (.csv): expand into member parameter files")
+    ss = s.add_subparsers(dest="action", required=True)
+    e = ss.add_parser("expand", help="write one member file (<member>.yaml) per schedule row")
+    e.add_argument("schedule", help="the schedule, a .csv file")
+    e.add_argument("--into", default=None, help="folder for the member files (default: <schedule stem>/ "
+                                                "beside the schedule)")
     k = sub.add_parser("pick", add_help=False,
                        help="lightest catalog section passing every check (calckit pick FILE --help)")
     k.add_argument("rest", nargs=argparse.REMAINDER)
     return p
+
+
+def _expand(schedule, into=None, say=print, running: bool = False) -> list[Path] | None:
+    """Expand one schedule; the member files, or None after reporting bad input on stderr."""
+    from .errors import InputError
+    from .schedule import expand
+
+    try:
+        files = expand(schedule, into)
+    except InputError as exc:
+        print(f"invalid  {exc}".replace("\n", "\n  "), file=sys.stderr)
+        return None
+    for f in files:
+        say(f"{f.status:<10} {f.path}  (row {f.row})")
+    paths = [f.path for f in files]
+    folder = paths[0].parent if paths else None
+    for q in sorted(folder.glob("*.y*ml")) if folder else ():
+        if q not in paths and q.name != "project.yaml":
+            say(f"note       {q}: not a row of {schedule}; left in place" + (", not run" if running else ""))
+    return paths
+
+
+def _split_schedules(paths) -> tuple[list, list]:
+    return ([p for p in paths if str(p).lower().endswith(".csv")],
+            [p for p in paths if not str(p).lower().endswith(".csv")])
 
 
 def _run(args, paths, demo: bool) -> int:
@@ -85,6 +126,17 @@ def _run(args, paths, demo: bool) -> int:
 
     import os
 
+    schedules, paths = _split_schedules(paths)
+    bad = 0
+    for sch in schedules:
+        files = _expand(sch, say=(lambda s: None) if args.quiet else (lambda s: print(s, file=sys.stderr)),
+                        running=True)
+        if files is None:
+            bad += 1
+        else:
+            paths += files
+    if bad and not paths:
+        return 2
     if args.no_fork:
         os.environ["CALCKIT_FORK_KERNELS"] = "0"
     out = Path(args.out) if args.out else _repo_dir("outputs")
@@ -96,7 +148,7 @@ def _run(args, paths, demo: bool) -> int:
     print(summary_text(res.rows))
     for f in res.summary_files:
         print(f"summary: {f}")
-    code = res.exit_code
+    code = 2 if bad else res.exit_code
     if demo:
         odd = [r for r in res.rows if not r.as_expected]
         if not odd:
@@ -114,8 +166,19 @@ def _check(paths) -> int:
     from .errors import InputError
     from .params import validate
 
-    files, missing = discover(paths)
-    bad = len(missing)
+    from .schedule import read_schedule
+
+    schedules, paths = _split_schedules(paths)
+    bad = 0
+    for sch in schedules:
+        try:
+            for r in read_schedule(sch).rows:
+                print(f"ok       {sch}: row {r.row} (member {r.member})")
+        except InputError as exc:
+            bad += 1
+            print(f"invalid  {exc}", file=sys.stderr)
+    files, missing = discover(paths) if paths else ([], [])
+    bad += len(missing)
     for m in missing:
         print(m, file=sys.stderr)
     for f in files:
@@ -127,7 +190,7 @@ def _check(paths) -> int:
         except InputError as exc:
             bad += 1
             print(f"invalid  {exc}", file=sys.stderr)
-    return 2 if bad or not files else 0
+    return 2 if bad or not (files or schedules) else 0
 
 
 def _verify(args) -> int:
@@ -149,6 +212,8 @@ def main(argv=None) -> int:
         return _run(args, [_repo_dir("parameters")], demo=True)
     if args.command == "check":
         return _check(args.paths)
+    if args.command == "schedule":
+        return 0 if _expand(args.schedule, args.into) is not None else 2
     if args.command == "pick":
         from .pick.report import pick_main
 
