@@ -3,8 +3,8 @@
 :func:`calckit.record.verify`, :func:`calckit.pick` and :func:`calckit.schedule.expand`.
 
 A ``.csv`` path given to ``run`` or ``check`` is a beam schedule (:mod:`calckit.schedule`): ``run`` expands
-it into ``<schedule stem>/`` beside it (created if missing; a member file that differs from its row is
-never overwritten) and runs those member files; ``check`` validates its rows without writing anything.
+it into ``<schedule stem>/`` beside it (created if missing; a member file whose row changed is updated only
+while it is as calckit wrote it, a hand-edited one is never overwritten) and runs those member files; ``check`` validates its rows without writing anything.
 
 Exit codes
 ----------
@@ -20,8 +20,9 @@ pick:
     0  a section passes (the lightest is printed), 1 no catalog section passes (the closest are listed),
     2  bad input
 schedule expand:
-    0  every member file written or left unchanged (identical), 2 bad input or a member file that differs
-       from its row (nothing is written then)
+    0  every member file written, updated (its row changed, the file untouched since calckit wrote it) or
+       left unchanged; 2 bad input or a hand-edited member file that differs from its row (nothing is
+       written then)
 verify:
     0  same: every number of the results payload agrees (relative tolerance 1e-9) and every hash matches
     1  a difference (each one is listed)

@@ -98,7 +98,7 @@ class Schedule:
 
 @dataclass(frozen=True)
 class MemberFile:
-    """One member file of an expansion: its path, row, member and ``status`` ('written' or 'unchanged')."""
+    """One member file of an expansion: its path, row, member and ``status`` ('written', 'updated' or 'unchanged')."""
 
     path: Path
     row: int
@@ -362,12 +362,31 @@ def member_text(schedule: Schedule, row: ScheduleRow, folder) -> str:
     if yaml.safe_load(body) != data:  # a guard on the writer, not on user input
         raise InputError(f"{row.member}: the member file would not read back as written")
     head = ["# Member file written by calckit from a beam schedule: edit the schedule, then expand it again",
-            "# (calckit never overwrites a member file whose parameters differ from its row).",
+            "# (calckit updates this file from its row only while it is as calckit wrote it; a file edited",
+            "# by hand is never overwritten).",
             f"# schedule: {_rel(schedule.path, folder)}, row {row.row}",
-            f"# schedule sha256: {schedule.sha256}"]
+            f"# schedule sha256: {schedule.sha256}",
+            f"# body sha256: {_sha(body)}"]
     if schedule.project_file is not None:
         head.append(f"# project keys from: {_rel(schedule.project_file, folder)}")
     return "\n".join(head) + "\n" + body
+
+
+def _sha(body: str) -> str:
+    import hashlib
+
+    return hashlib.sha256(body.encode("utf-8")).hexdigest()
+
+
+def _as_written(text: str) -> bool:
+    """The member file is as calckit wrote it: its header's body sha256 matches its body (not edited by
+    hand since), so updating it from its row loses nothing (archived records keep their own parameters)."""
+    for ln in text.splitlines():
+        if not ln.startswith("#"):
+            break
+        if ln.startswith("# body sha256: "):
+            return ln.split(": ", 1)[1].strip() == _sha(_body(text))
+    return False
 
 
 def _body(text: str) -> str:
@@ -379,12 +398,15 @@ def expand(schedule, into=None, *, calc: str | None = None) -> list[MemberFile]:
     """Write one member file per row of ``schedule`` into ``into`` (default :func:`default_folder`).
 
     Every row is validated and every existing file compared first; then the new files are written
-    (exclusive create) and the identical ones left untouched. Raises :class:`ScheduleError` (nothing
-    written) on bad input or when a member file exists whose parameters differ from its row.
+    (exclusive create), the identical ones left untouched, and a file whose row has changed is updated
+    when it is still as calckit wrote it (its header's body sha256 matches: the archived records of the
+    member keep their own copy of the parameters, so nothing is lost; the next run files a new revision).
+    Raises :class:`ScheduleError` (nothing written) on bad input or when a member file that differs from
+    its row was edited by hand or was not written from a schedule.
     """
     sch = read_schedule(schedule, calc)
     folder = Path(into) if into is not None else default_folder(sch.path)
-    plan: list[tuple[ScheduleRow, Path, str, bool]] = []
+    plan: list[tuple[ScheduleRow, Path, str, str]] = []
     conflicts = []
     for r in sch.rows:
         target = folder / f"{r.member}.yaml"
@@ -395,18 +417,30 @@ def expand(schedule, into=None, *, calc: str | None = None) -> list[MemberFile]:
                 old = target.read_text(encoding="utf-8")
             except (OSError, UnicodeDecodeError):
                 old = None
-            if old is None or _body(old) != _body(text):
-                conflicts.append((r.row, r.member, "member", f"{target}: exists and differs from row {r.row} "
-                                  f"(member {r.member}) of {sch.path}; not overwritten. Move it aside (archived "
-                                  "records point to it and hash it) or expand into another folder"))
-        plan.append((r, target, text, exists))
+            if old is not None and _body(old) == _body(text):
+                plan.append((r, target, text, "unchanged"))
+                continue
+            if old is None or not _as_written(old):
+                conflicts.append((r.row, r.member, "member", f"{target}: exists, differs from row {r.row} "
+                                  f"(member {r.member}) of {sch.path} and was edited by hand or not written "
+                                  "from a schedule; not overwritten. Move it aside or expand into another "
+                                  "folder"))
+                continue
+            plan.append((r, target, text, "updated"))
+            continue
+        plan.append((r, target, text, "written"))
     if conflicts:
         raise ScheduleError(str(sch.path), conflicts, what="conflict")
     folder.mkdir(parents=True, exist_ok=True)
     out = []
-    for r, target, text, exists in plan:
-        if not exists:
+    for r, target, text, status in plan:
+        if status == "written":
             with open(target, "x", encoding="utf-8", newline="\n") as fh:
                 fh.write(text)
-        out.append(MemberFile(target, r.row, r.member, "unchanged" if exists else "written"))
+        elif status == "updated":
+            tmp = target.with_name(target.name + ".new")
+            with open(tmp, "x", encoding="utf-8", newline="\n") as fh:
+                fh.write(text)
+            os.replace(tmp, target)  # atomic: the old file or the new one, never half of either
+        out.append(MemberFile(target, r.row, r.member, status))
     return out

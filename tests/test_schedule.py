@@ -172,11 +172,28 @@ def test_identical_files_are_left_untouched(tmp_path):
     assert _tree(out) == before
 
 
-def test_a_changed_row_is_refused_and_nothing_is_written(tmp_path):
+def test_a_changed_row_updates_its_untouched_member_file(tmp_path):
+    """The engineer changes a section in the schedule and runs it again: the member file, still as calckit
+    wrote it, is updated (the archived record keeps its own parameters); the others stay untouched."""
     s = _write(tmp_path, GOOD)
     out = default_folder(s)  # where `calckit run s.csv` expands
     assert out == tmp_path / "s"
     expand(s)
+    before = _tree(out)
+    _write(tmp_path, GOOD.replace("IPE 330", "IPE 360"))
+    got = expand(s, out)
+    assert {f.member: f.status for f in got} == {"B-1": "unchanged", "B-2": "updated"}
+    after = _tree(out)
+    assert after["B-1.yaml"] == before["B-1.yaml"] and after["B-2.yaml"] != before["B-2.yaml"]
+    assert "IPE 360" in (out / "B-2.yaml").read_text() and not list(out.glob("*.new"))
+
+
+def test_a_changed_row_whose_file_was_edited_by_hand_is_refused_and_nothing_is_written(tmp_path):
+    s = _write(tmp_path, GOOD)
+    out = default_folder(s)
+    expand(s)
+    f = out / "B-2.yaml"
+    f.write_text(f.read_text() + "# checked by JB\nself_weight: true\n")  # a hand edit
     before = _tree(out)
     _write(tmp_path, GOOD.replace("IPE 330", "IPE 360") + "B-3,EN 1993-1-1,IPE 300,S355,5 m,,4 kN/m,5 kN/m,,,\n")
     with pytest.raises(ScheduleError) as ei:

@@ -7,6 +7,8 @@ Public API (units at the boundary: pint quantities or strings such as "5.7 m", "
     en1993.shear(section, steel, V_Ed, a=None, ...)             # 6.2.6 / EN 1993-1-5 section 5
     en1993.ltb(section, steel, L="5.7 m", C1=None, moment_diagram=None, zg=0, method="general"|"rolled")
     en1993.transverse(section, steel, F_Ed, ss=..., load_type="a")   # EN 1993-1-5 section 6
+    en1993.bearing_stiffener(section, steel, F_Ed, b_s=..., t_s=..., end=True)   # EN 1993-1-5 section 9
+    en1993.size_bearing_stiffener(section, steel, F_Ed, end=True)                # thinnest passing pair
     en1993.deflection(delta, span, kind="total")                # 7.2 (limits from the annex set)
     en1993.classify(section, steel)                             # Table 5.2
     en1993.check_member(section, steel, x=..., M=..., V=..., restraints=..., forces=..., deflections=...)
@@ -42,8 +44,10 @@ from .mcr import equivalent_factors, mcr_energy, mcr_formula
 from .demands import Demands, demands
 from .member import Force, check_member, from_analysis
 from .shear import shear
+from .stiffeners import StiffenerSizing, bearing_stiffener, size_bearing_stiffener
 from .transverse import transverse
 
 __all__ = ["bending", "shear", "ltb", "transverse", "deflection", "classify", "check_member", "Force",
            "from_analysis", "annex_set", "known_sets", "AnnexSet", "ENResult", "Classification", "chi_lt",
-           "mcr_formula", "mcr_energy", "equivalent_factors", "demands", "Demands"]
+           "mcr_formula", "mcr_energy", "equivalent_factors", "demands", "Demands", "bearing_stiffener",
+           "size_bearing_stiffener", "StiffenerSizing"]
