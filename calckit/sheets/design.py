@@ -56,7 +56,13 @@ def to_render(cr, system: str = "SI") -> Any:
     steps = tuple(steps)
     comb = cr.combination or ""
     show = comb and comb not in cr.limit_state and not comb.startswith("envelope")
-    name = cr.limit_state + (f" ({comb})" if show else "")
+    name = cr.limit_state
+    if cr.segment is not None:  # several segments share a limit state: say which one
+        from ..units import fmt
+
+        a, b = cr.segment
+        name += f", x = {fmt(a, 'span', system)} to {fmt(b, 'span', system)}"
+    name += f" ({comb})" if show else ""
     demand = 0.0 if cr.demand is None else abs(float(cr.demand))
     note = cr.note
     if cr.location is not None:
