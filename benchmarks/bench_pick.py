@@ -4,7 +4,9 @@ Goals (brief): whole-catalog search (>= 250 shapes, every check, one member) <= 
 proportioning over a stock of 15 plate thicknesses and 10 widths <= 5 s. Plain script; prints numbers,
 including where the time goes per check (the design modules' numeric paths). Each search is timed
 ``repeat`` times (best and median printed): the machine is shared, so the spread matters.
-Run: .venv/bin/python benchmarks/bench_pick.py
+Run: .venv/bin/python benchmarks/bench_pick.py [--only TEXT[,TEXT...]] [--repeat N] [--search-only]
+(``--only EN`` times the members whose label contains "EN"; ``--search-only`` skips the per-check table
+and the girders: for interleaving runs of two versions of the code on the shared machine).
 """
 from __future__ import annotations
 
@@ -53,13 +55,16 @@ def _members():
     }
 
 
-def bench_search(repeat: int = 7) -> list[tuple[str, int, float, float, dict, float]]:
-    """(label, sections, best wall s, median wall s, stages of the best run, best CPU s) per member; CPU
-    time (time.process_time) is less disturbed by other jobs on a shared machine than wall time."""
+def bench_search(repeat: int = 7, only=None) -> list[tuple[str, int, float, float, dict, float, float]]:
+    """(label, sections, best wall s, median wall s, stages of the best run, best CPU s, median CPU s) per
+    member (``only``: substrings, a member is timed when its label contains one); CPU time
+    (time.process_time) is less disturbed by other jobs on a shared machine than wall time."""
     import calckit
 
     out = []
     for label, m in _members().items():
+        if only and not any(t in label for t in only):
+            continue
         calckit.pick(m, families=FAMILIES)  # warm-up (data files, compiled formulas)
         runs, cpu = [], []
         for _ in range(repeat):
@@ -68,7 +73,7 @@ def bench_search(repeat: int = 7) -> list[tuple[str, int, float, float, dict, fl
             cpu.append(time.process_time() - c0)
         best = min(runs, key=lambda r: r.elapsed)
         med = statistics.median(r.elapsed for r in runs)
-        out.append((label, best.n_checked, best.elapsed, med, best.timings, min(cpu)))
+        out.append((label, best.n_checked, best.elapsed, med, best.timings, min(cpu), statistics.median(cpu)))
     return out
 
 
@@ -154,19 +159,35 @@ def bench_girders(repeat: int = 3) -> list[tuple[str, float, object]]:
     return out
 
 
-def main() -> None:
-    print("Section search, whole catalog (W + IPE + HEA + HEB), every check incl. deflection, self-weight per candidate")
-    for label, n, best, med, tm, cpu in bench_search():
+def main(argv=None) -> None:
+    import argparse
+    import os
+
+    ap = argparse.ArgumentParser(description="section search and girder proportioning benchmarks")
+    ap.add_argument("--only", default="", help="comma-separated substrings of the member labels to time")
+    ap.add_argument("--repeat", type=int, default=7, help="timed searches per member (best and median printed)")
+    ap.add_argument("--search-only", action="store_true", help="skip the per-check table and the girders")
+    args = ap.parse_args(argv)
+    only = [t for t in args.only.split(",") if t]
+    print("Section search, whole catalog (W + IPE + HEA + HEB), every check incl. deflection, self-weight per candidate"
+          f" (load average {os.getloadavg()[0]:.2f})")
+    for label, n, best, med, tm, cpu, cpu_med in bench_search(args.repeat, only):
         stages = ", ".join(f"{k} {v * 1e3:.1f}" for k, v in tm.items())
         print(f"  {label}: {n} sections, wall best {best * 1e3:.1f} ms, median {med * 1e3:.1f} ms, CPU best "
-              f"{cpu * 1e3:.1f} ms ({cpu / n * 1e6:.0f} us/section; stages ms: {stages}) -> goal "
-              f"{GOAL_SEARCH_S * 1e3:.0f} ms {'met' if min(best, cpu) <= GOAL_SEARCH_S else 'NOT met'}")
+              f"{cpu * 1e3:.1f} ms, median {cpu_med * 1e3:.1f} ms ({cpu / n * 1e6:.0f} us/section; stages ms: "
+              f"{stages}) -> goal {GOAL_SEARCH_S * 1e3:.0f} ms {'met' if min(best, cpu) <= GOAL_SEARCH_S else 'NOT met'}")
+    if args.search_only:
+        return
     print("\nWhere the time goes (mean per candidate, first 60 catalog sections):")
     ms = _members()
     for label in ("AISC LRFD, 35 ft simple span, braced at thirds", "AISC ASD, 2 x 24 ft continuous, braced at midspans",
                   "EN 1993-1-1, 6 m simple span, restraint at midspan",
                   "EN 1993-1-1, 2 x 6 m continuous, pattern live load, restraints at supports",
-                  "EN 1993-1-1, 6 m span + 2 m overhang, restraints at supports"):
+                  "EN 1993-1-1, 3 x 5-6 m continuous, pattern live load, restraints at supports",
+                  "EN 1993-1-1, 6 m span + 2 m overhang, restraints at supports",
+                  "EN 1993-1-1, 3 m cantilever, tip load"):
+        if only and not any(t in label for t in only):
+            continue
         print(f"  {label}:")
         for k, v in per_check(ms[label]).items():
             print(f"    {k}: {v * 1e3:.3f} ms")

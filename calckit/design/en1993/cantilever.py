@@ -335,6 +335,49 @@ def _factor_stiffness(Lo, Lb, warp, Ku, Kt, Kw, EIz, GIt, EIw):
     return out
 
 
+_BLOCKS: dict = {}
+
+
+def _stiffness_blocks(Lo, Lb, warp, model, iu, ip):
+    """The u and phi blocks of the section-independent stiffness matrices (K_u[u, u], K_t[phi, phi],
+    K_w[phi, phi]) of a mesh: the same for every diagram and section, so sliced once per mesh."""
+    key = (Lo, Lb, warp)
+    hit = _BLOCKS.get(key)
+    if hit is None:
+        Ku, Kt, Kw = model._matrices(warp)[:3]
+        uu, pp = np.ix_(iu, iu), np.ix_(ip, ip)
+        hit = (Ku[uu], Kt[pp], Kw[pp])
+        if len(_BLOCKS) >= _STIFF_MAX:
+            _BLOCKS.clear()
+        _BLOCKS[key] = hit
+    return hit
+
+
+def _gufuncs():
+    """numpy's LAPACK gufuncs behind cholesky and inv without the wrappers' per-call checks (the same
+    routines, so the same values; numpy.linalg where they are not available)."""
+    try:
+        from numpy.linalg import _umath_linalg as ul
+
+        chol, inv = ul.cholesky_lo, ul.inv
+        t = np.array([[4.0, 1.0], [1.0, 3.0]])
+        if not (np.array_equal(chol(t, signature="d->d"), np.linalg.cholesky(t))
+                and np.array_equal(inv(t, signature="d->d"), np.linalg.inv(t))):
+            raise ValueError
+    except Exception:  # pragma: no cover - depends on the numpy build
+        return np.linalg.cholesky, np.linalg.inv
+
+    def cholesky(a: np.ndarray) -> np.ndarray:
+        with np.errstate(invalid="ignore"):
+            c = chol(a, signature="d->d")
+        return c if np.isfinite(c[-1, -1]) else np.linalg.cholesky(a)  # failure: let numpy raise
+
+    return cholesky, lambda a: inv(a, signature="d->d")
+
+
+_cholesky, _inv = _gufuncs()
+
+
 def _factor_blocks(Lo, Lb, warp, model, EIz, GIt, EIw, iu, ip):
     """(d_u, L_u^-1, d_phi, L_phi^-1) of the u and phi blocks of the stiffness, scaled as in
     :func:`_factor_stiffness` (kept for the last few mesh and section pairs)."""
@@ -342,17 +385,17 @@ def _factor_blocks(Lo, Lb, warp, model, EIz, GIt, EIw, iu, ip):
     hit = _STIFF.get(key)
     if hit is not None:
         return hit
-    Ku, Kt, Kw = model._matrices(warp)[:3]
+    Kuu, Ktp, Kwp = _stiffness_blocks(Lo, Lb, warp, model, iu, ip)
     out = []
-    for K in (EIz * Ku[np.ix_(iu, iu)], GIt * Kt[np.ix_(ip, ip)] + (EIw * Kw[np.ix_(ip, ip)] if EIw else 0.0)):
+    for K in (EIz * Kuu, GIt * Ktp + (EIw * Kwp if EIw else 0.0)):
         d = 1.0 / np.sqrt(np.diag(K))
         K = K * d[:, None] * d[None, :]
         try:
-            Lc = np.linalg.cholesky(K)
+            Lc = _cholesky(K)
         except np.linalg.LinAlgError:  # pragma: no cover - positive definite for E I_z, G I_t > 0
             raise InputError("section: the stiffness of the cantilever model is not positive definite "
                              "(check E I_z, G I_t > 0)") from None
-        out += [d, np.linalg.inv(Lc)]
+        out += [d, _inv(Lc)]
     if len(_STIFF) >= _STIFF_MAX:
         _STIFF.clear()
     _STIFF[key] = tuple(out)

@@ -355,8 +355,10 @@ def ltb_si(s, mat: Material, annex: AnnexSet, *, L: float, C1=None, C2=None, C3=
         raise InputError(f"M_cr: got {Mcr:.4g} N m from the three-factor formula; check C1, C2, z_g")
     lam = calc(F_LAM, W_y=W, f_y=mat.fy, M_cr=Mcr)
     curve, hb = _curve(s, method, annex)
-    alpha = calc.given("alpha_LT", ALPHA_LT[curve], reference=f"{_R} Table 6.3, curve {curve} "
-                       f"(Table {'6.4' if method == 'general' else '6.5'}: {s.kind.replace('I_', '')} I, h/b = {hb:.2f})")
+    alpha = ALPHA_LT[curve]
+    if calc.steps:  # the reference text is formatted only for the calc sheet
+        calc.given("alpha_LT", alpha, reference=f"{_R} Table 6.3, curve {curve} (Table "
+                   f"{'6.4' if method == 'general' else '6.5'}: {s.kind.replace('I_', '')} I, h/b = {hb:.2f})")
     rolled_sec = s.kind == "I_rolled"
     lam0 = 0.2 if method == "general" else (annex.lambda_LT_0 if rolled_sec else annex.lambda_LT_0_welded)
     beta = 1.0 if method == "general" else (annex.beta if rolled_sec else annex.beta_welded)

@@ -212,6 +212,25 @@ def mcr_energy(L: float, EIz: float, GIt: float, EIw: float, M, zg: float = 0.0,
     return lam  # m is normalised to a peak of 1 N m, so lam is the critical peak moment
 
 
+_SCALING: dict = {}
+
+
+def _scaling(mu: np.ndarray, L: float, GIt: float, EIw: float) -> tuple[np.ndarray, np.ndarray]:
+    """(r_phi, outer(r_phi, r_phi)) with r_phi = 1 / sqrt(G I_t / L + E I_w / L^3 mu): the twist terms'
+    diagonal scaling of :meth:`Shape.mcr`, the same for every diagram of a segment and section, so kept
+    for the last few (basis, length, section)."""
+    key = (id(mu), L, GIt, EIw)
+    hit = _SCALING.get(key)
+    if hit is not None and hit[0] is mu:
+        return hit[1], hit[2]
+    r_phi = 1.0 / np.sqrt(GIt / L + EIw / L ** 3 * mu)
+    rr = np.outer(r_phi, r_phi)
+    if len(_SCALING) >= 32:
+        _SCALING.clear()
+    _SCALING[key] = (mu, r_phi, rr)
+    return r_phi, rr
+
+
 class Shape:
     """The parts of the energy solution that depend only on the normalised moment diagram of a segment and
     its end conditions (k, k_w): computed once and reused for every section (same basis, quadrature and
@@ -249,9 +268,9 @@ class Shape:
         return val
 
     def _mcr(self, L: float, EIz: float, GIt: float, EIw: float, zg: float, zj: float) -> float:
-        r_phi = 1.0 / np.sqrt(GIt / L + EIw / L ** 3 * self.mu)
+        r_phi, rr = _scaling(self.mu, L, GIt, EIw)
         if not (zg or zj):
-            H = self.CtC * np.outer(r_phi, r_phi)
+            H = self.CtC * rr
             smax = float(eigvalsh(H)[-1])
             sigma = math.sqrt(max(smax, 0.0)) * math.sqrt(L ** 3 / EIz) / L
             if not sigma > 1e-14:
