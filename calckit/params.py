@@ -151,6 +151,10 @@ _LOAD_FIELDS = (
     Param("bearing", "optional_quantity", None, "stiff bearing length under the load, when it bears on the "
           "top flange (web bearing is checked there); none: framed in, no bearing check", dim="length",
           lo="0 mm", hi="2000 mm"),
+    Param("stiffener_b", "optional_quantity", None, "width of each load-bearing stiffener of a pair under "
+          "the load (with stiffener_t and bearing)", dim="length", lo="10 mm", hi="1000 mm"),
+    Param("stiffener_t", "optional_quantity", None, "thickness of those stiffeners", dim="length", lo="3 mm",
+          hi="100 mm"),
 )
 
 _DESIGN = (
@@ -193,10 +197,11 @@ _BEARING = (
           "EN 1993-1-5 section 6); none: framed end connections, no bearing check", dim="length",
           lo="0 mm", hi="2000 mm"),
     Param("bearing_stiffener_b", "optional_quantity", None,
-          "AISC only: width of each bearing stiffener of the pair at the supports (none: no stiffeners; a "
-          "pair is then sized where the web needs one)", dim="length", lo="10 mm", hi="1000 mm"),
+          "width of each bearing stiffener of the pair at the supports (none: no stiffeners; AISC sizes a "
+          "pair where the web needs one)", dim="length", lo="10 mm", hi="1000 mm"),
     Param("bearing_stiffener_t", "optional_quantity", None,
-          "AISC only: thickness of the bearing stiffeners at the supports", dim="length", lo="3 mm",
+          "thickness of the bearing stiffeners at the supports (AISC 360-22 J10.8; EN 1993-1-5 9.4)",
+          dim="length", lo="3 mm",
           hi="100 mm"),
 )
 
@@ -215,13 +220,24 @@ def _stiffener_check(v: Mapping[str, Any]) -> list[tuple[str, str]]:
     if b is None or t is None:
         miss = "bearing_stiffener_b" if b is None else "bearing_stiffener_t"
         return [(miss, "got none; expected both the width and the thickness of the bearing stiffeners")]
-    if not str(v.get("standard", "")).upper().startswith("AISC"):
-        return [("bearing_stiffener_b", "bearing stiffeners are checked to AISC 360-22 J10.8 only; the "
-                 "EN 1993-1-5 bearing stiffener design is not implemented (leave both empty)")]
     if v.get("bearing_length") is None:
         return [("bearing_length", "got none; expected the bearing length at the supports where the bearing "
                  "stiffeners are")]
     return []
+
+
+def _load_stiffener_check(v: Mapping[str, Any]) -> list[tuple[str, str]]:
+    out = []
+    for i, pl in enumerate(v.get("point_loads") or []):
+        if not isinstance(pl, Mapping):
+            continue
+        b, t = pl.get("stiffener_b"), pl.get("stiffener_t")
+        if (b is None) != (t is None):
+            out.append(("point_loads", f"item {i + 1}: give both stiffener_b and stiffener_t, or neither"))
+        elif b is not None and pl.get("bearing") is None:
+            out.append(("point_loads", f"item {i + 1}: stiffeners under a load need its bearing length "
+                                       "(bearing)"))
+    return out
 
 
 def _grade_check(v: Mapping[str, Any]) -> list[tuple[str, str]]:
@@ -261,7 +277,7 @@ def _beam_check(v: Mapping[str, Any]) -> list[tuple[str, str]]:
     from .units import to_si
 
     lightest = isinstance(v["section"], str) and v["section"].strip().lower() == "lightest"
-    out: list[tuple[str, str]] = (_grade_check(v) + _stiffener_check(v) +
+    out: list[tuple[str, str]] = (_grade_check(v) + _stiffener_check(v) + _load_stiffener_check(v) +
                                   ([] if lightest else _section_check(v["section"], "section")))
     spans, sup = v.get("spans"), v.get("supports")
     if isinstance(spans, list) and isinstance(sup, list) and len(sup) != len(spans) + 1:
@@ -288,7 +304,7 @@ def _beam_check(v: Mapping[str, Any]) -> list[tuple[str, str]]:
 def _girder_check(v: Mapping[str, Any]) -> list[tuple[str, str]]:
     from .units import to_si
 
-    out = _grade_check(v) + _stiffener_check(v)
+    out = _grade_check(v) + _stiffener_check(v) + _load_stiffener_check(v)
     try:
         L = to_si(v["span"], "span")
     except Exception:

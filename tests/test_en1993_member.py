@@ -91,3 +91,32 @@ def test_envelope_adapter():
     assert any(c.limit_state.startswith("Lateral") for c in r.checks)
     bend = [c for c in r.checks if c.limit_state.startswith("Bending")]
     assert max(c.demand for c in bend) == pytest.approx(float(np.max(np.abs(env.M_min))), rel=1e-9)
+
+
+def test_stiffened_forces_get_the_bearing_stiffener_checks():
+    """A force marked stiffened (or with a given stiffener) is checked as a pair of bearing stiffeners to
+    EN 1993-1-5 section 9 (calckit.design.en1993.stiffeners, itself recomputed by hand in
+    tests/test_en1993_stiffeners.py) instead of the web check of section 6; without a given pair the
+    thinnest passing pair is sized, and the same call made directly gives the same numbers."""
+    import calckit
+    from calckit.design import en1993
+
+    g = calckit.PlateGirder(d="1580 mm", tw="14 mm", bf_top="550 mm", tf_top="40 mm", weld="8 mm")
+    x = [0.0, 12.0, 24.0]
+    M = [0.0, 8.0e6, 0.0]
+    V = [1.3e6, 0.0, -1.3e6]
+    forces = [{"x": 0, "ss": "200 mm", "F": "1300 kN", "load_type": "c", "c": 0, "flange": "bottom",
+               "stiffened": True},
+              {"x": 24, "ss": "200 mm", "F": "1300 kN", "load_type": "c", "c": 0, "flange": "bottom",
+               "stiffener": ("200 mm", "20 mm")}]
+    res = en1993.check_member(g, "S355", x=x, M=M, V=V, restraints="continuous", forces=forces)
+    assert not [c for c in res.checks if c.limit_state.startswith("Transverse force")]
+    left = [c for c in res.checks if c.limit_state.startswith("Bearing stiffener") and c.location == 0.0]
+    right = [c for c in res.checks if c.limit_state.startswith("Bearing stiffener") and c.location == 24.0]
+    assert len(left) == len(right) == 5 and all(c.passed for c in left)
+    sized = en1993.size_bearing_stiffener(g, "S355", "1300 kN", end=True, e="0 m", steps=False)
+    assert [c.ratio for c in left] == pytest.approx([c.ratio for c in sized.checks], rel=1e-12)
+    direct = en1993.bearing_stiffener(g, "S355", "1300 kN", b_s="200 mm", t_s="20 mm", end=True, e="0 m",
+                                      steps=False)
+    assert [c.ratio for c in right] == pytest.approx([c.ratio for c in direct], rel=1e-12)
+    assert any("pair sized" in n for n in res.notes)

@@ -99,9 +99,10 @@ BAD_CASES = [
      ["bearing_stiffener_t", "both the width and the thickness"]),
     ("stiffener-without-bearing", GOOD + "bearing_stiffener_b: 3 in\nbearing_stiffener_t: 0.5 in\n",
      ["bearing_length", "bearing stiffeners are"]),
-    ("stiffener-en", GOOD.replace("AISC 360-22", "EN 1993-1-1").replace("W18X50", "IPE 300").replace(
-        "A992", "S355") + "bearing_length: 100 mm\nbearing_stiffener_b: 80 mm\nbearing_stiffener_t: 10 mm\n",
-     ["bearing_stiffener_b", "AISC 360-22 J10.8 only", "not implemented"]),
+    ("load-stiffener-half-given", GOOD + "point_loads:\n  - {case: D, P: 10 kip, x: 4 ft, bearing: 4 in, "
+     "stiffener_b: 3 in}\n", ["point_loads", "item 1", "both stiffener_b and stiffener_t"]),
+    ("load-stiffener-without-bearing", GOOD + "point_loads:\n  - {case: D, P: 10 kip, x: 4 ft, stiffener_b: 3 in, "
+     "stiffener_t: 0.5 in}\n", ["point_loads", "item 1", "bearing length"]),
     ("point-load-bearing-unit", GOOD + "point_loads:\n  - {case: D, P: 10 kip, x: 4 ft, bearing: 4}\n",
      ["point_loads", "bearing", "bare number"]),
 ]

@@ -130,9 +130,30 @@ def test_point_load_bearing_only_where_given():
     raw = yaml.safe_load((ROOT / "parameters" / "L-108.yaml").read_text())
     raw.pop("calc")
     s = BeamSheet(validate("steel_beam", dict(raw), source="L-108"))
-    kinds = [(k, round(lb, 6)) for _, lb, k, _ in bearing_points(s)]
+    kinds = [(k, round(lb, 6)) for _, lb, k, _, _ in bearing_points(s)]
     assert kinds == [("end", 0.15), ("end", 0.15), ("load", 0.1)]
     for pl in raw["point_loads"]:
         pl.pop("bearing")
     s2 = BeamSheet(validate("steel_beam", raw, source="L-108"))
-    assert [k for _, _, k, _ in bearing_points(s2)] == ["end", "end"]
+    assert [k for _, _, k, _, _ in bearing_points(s2)] == ["end", "end"]
+
+
+def test_en_girder_bearing_stiffeners_at_supports_and_under_the_columns():
+    """TG-201 (EN 1993-1-1): the web under a column (type (a), 450 mm base plate) fails the transverse
+    force and bending interaction of EN 1993-1-5 7.2 without stiffeners; with the given 250 x 25 mm pairs
+    the checks of EN 1993-1-5 section 9 replace the web check at the two columns and the two supports."""
+    from calckit.sheets.girder import GirderSheet
+
+    raw = yaml.safe_load((ROOT / "parameters" / "TG-201.yaml").read_text())
+    raw.pop("calc")
+    s = GirderSheet(validate("plate_girder", raw, source="TG-201"))
+    res = s.design_results()
+    stiff = [r for r in res if r.limit_state.startswith("Bearing stiffener pair")]
+    assert sorted({r.location for r in stiff}) == [0.0, 5.5, 10.5, 16.0]
+    assert all(r.passed for r in stiff)
+    assert not [r for r in res if r.limit_state.startswith("Transverse force")]  # replaced by the stiffeners
+    for pl in raw["point_loads"]:
+        pl.pop("stiffener_b", None), pl.pop("stiffener_t", None)
+    bare = GirderSheet(validate("plate_girder", raw, source="TG-201")).design_results()
+    web = [r for r in bare if r.limit_state.startswith("Transverse force")]
+    assert {r.location for r in web} == {5.5, 10.5} and any(r.passed is False for r in web)

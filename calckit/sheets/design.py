@@ -174,8 +174,8 @@ def member_checks(sheet, a=None) -> list:
     """Design CheckResults of a beam or girder sheet from the design engine of its standard, on the real
     diagram of every combination and arrangement (:func:`diagrams`), with the lateral restraints, the
     stiffener spacing ``a`` and the concentrated forces where the parameters give a bearing length: at
-    the supports (``bearing_length``) and under point loads that bear on the flange (their ``bearing``)
-    (AISC 360-22 J10; EN 1993-1-5 section 6)."""
+    the supports (``bearing_length``) and under point loads that bear on the flange (their ``bearing``),
+    with the bearing stiffeners given there (AISC 360-22 J10; EN 1993-1-5 sections 6 and 9)."""
     dia = diagrams(sheet)
     points = bearing_points(sheet)
     if not sheet.aisc:
@@ -188,20 +188,18 @@ def member_checks(sheet, a=None) -> list:
     from ..design.aisc360 import bearing, check_member
 
     bracing = "continuous" if not sheet.braces else sheet.braces
-    sb, st = sheet.p.get("bearing_stiffener_b"), sheet.p.get("bearing_stiffener_t")
-    pair = None if sb is None or st is None else (sb, st)
     bearings = [bearing(f"{x!r} m", lb=f"{lb!r} m", flange="top" if kind == "load" else "bottom", name=name,
-                        stiffener=None if kind == "load" else pair)
-                for x, lb, kind, name in points]
+                        stiffener=pair) for x, lb, kind, name, pair in points]
     res = check_member(sheet.section, sheet.steel, dia, method=sheet.method, bracing=bracing,
                        stiffeners=None if a is None else f"{a!r} m", bearing=bearings)
     return list(res.checks)
 
 
-def bearing_points(sheet) -> list[tuple[float, float, str, str]]:
-    """(x, bearing length, kind, name) of the concentrated forces to check on the web: every support that
-    is not free when ``bearing_length`` is given (kind "end" or "interior"), and every point-load
-    position away from a support where a load has a ``bearing`` (kind "load"; the longest given there)."""
+def bearing_points(sheet) -> list[tuple[float, float, str, str, tuple | None]]:
+    """(x, bearing length, kind, name, stiffener pair) of the concentrated forces to check on the web:
+    every support that is not free when ``bearing_length`` is given (kind "end" or "interior"; the pair
+    ``bearing_stiffener_b``/``_t``), and every point-load position away from a support where a load has
+    a ``bearing`` (kind "load"; the longest given there, and the ``stiffener_b``/``_t`` given there)."""
     from ..units import fmt, to_si
 
     nodes = list(sheet.beam.layout.nodes)
@@ -211,10 +209,12 @@ def bearing_points(sheet) -> list[tuple[float, float, str, str]]:
     brg = sheet.p.get("bearing_length")
     if brg is not None:
         lb = to_si(brg, "length", "bearing_length")
+        sb, st = sheet.p.get("bearing_stiffener_b"), sheet.p.get("bearing_stiffener_t")
+        pair = None if sb is None or st is None else (sb, st)
         for i, (x, k) in enumerate(zip(nodes, kinds)):
             if k != "free":
-                out.append((x, lb, "end" if i in (0, len(nodes) - 1) else "interior", f"support {i + 1}"))
-    at: dict[float, float] = {}
+                out.append((x, lb, "end" if i in (0, len(nodes) - 1) else "interior", f"support {i + 1}", pair))
+    at: dict[float, list] = {}
     for i, pl in enumerate(sheet.p.get("point_loads") or []):
         if pl.get("bearing") is None:
             continue
@@ -222,27 +222,36 @@ def bearing_points(sheet) -> list[tuple[float, float, str, str]]:
         if any(abs(x - n) <= 1e-9 * L for n in nodes):
             continue  # over a support: the reaction's bearing governs
         key = next((k for k in at if abs(k - x) <= 1e-9 * L), x)
-        at[key] = max(at.get(key, 0.0), to_si(pl["bearing"], "length", f"point_loads[{i}].bearing"))
+        lb, pair = at.get(key, (0.0, None))
+        lb = max(lb, to_si(pl["bearing"], "length", f"point_loads[{i}].bearing"))
+        if pl.get("stiffener_b") is not None and pl.get("stiffener_t") is not None:
+            pair = (pl["stiffener_b"], pl["stiffener_t"])
+        at[key] = (lb, pair)
     for x in sorted(at):
-        out.append((x, at[x], "load", f"point load at x = {fmt(x, 'span', sheet.system)}"))
+        lb, pair = at[x]
+        out.append((x, lb, "load", f"point load at x = {fmt(x, 'span', sheet.system)}", pair))
     return out
 
 
 def _en_forces(points, dia) -> list:
     """EN 1993-1-5 transverse forces: a reaction at an end support is load type (c) with c = 0, at an
     interior support type (a); a point load on the top flange type (a) with F the largest jump of the
-    shear in any diagram (EN 1993-1-5 Figure 6.1)."""
+    shear in any diagram (EN 1993-1-5 Figure 6.1). Where a stiffener pair is given the force gets the
+    bearing stiffener checks of EN 1993-1-5 section 9 instead of the web check of section 6."""
     out = []
-    for x, ss, kind, name in points:
+    for x, ss, kind, name, pair in points:
         if kind == "load":
             F = max((abs(float(r.V_si(x, "left") - r.V_si(x, "right"))) for r in dia.values()),
                     default=0.0)
             if F <= 0:
                 continue
-            out.append({"x": x, "ss": ss, "F": F, "load_type": "a", "flange": "top", "name": name})
+            rec = {"x": x, "ss": ss, "F": F, "load_type": "a", "flange": "top", "name": name}
         else:
-            out.append({"x": x, "ss": ss, "F": None, "load_type": "c" if kind == "end" else "a",
-                        "c": 0.0 if kind == "end" else None, "flange": "bottom", "name": name})
+            rec = {"x": x, "ss": ss, "F": None, "load_type": "c" if kind == "end" else "a",
+                   "c": 0.0 if kind == "end" else None, "flange": "bottom", "name": name}
+        if pair is not None:
+            rec["stiffener"] = pair
+        out.append(rec)
     return out
 
 

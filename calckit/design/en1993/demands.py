@@ -60,8 +60,9 @@ N_SAMPLE = 200
 class Force:
     """A transverse force on the web: position ``x`` (m), magnitude ``F`` (N; None = the reaction at x
     from the analysis), stiff bearing length ``ss`` (m), ``load_type`` "a"/"b"/"c", ``c`` end distance (m,
-    type c), ``flange`` "top"/"bottom", ``stiffened`` (a bearing stiffener there: the web check is replaced
-    by the stiffener design, which calckit does not cover)."""
+    type c), ``flange`` "top"/"bottom", ``stiffened`` (a pair of bearing stiffeners there: the web check
+    of EN 1993-1-5 section 6 is replaced by the stiffener checks of section 9, the given ``stiffener``
+    (b_s, t_s[, clip]) in m, or the thinnest passing pair sized when it is None)."""
 
     x: float
     ss: float
@@ -71,6 +72,7 @@ class Force:
     flange: str = "top"
     stiffened: bool = False
     name: str = ""
+    stiffener: tuple | None = None
 
 
 @dataclass(frozen=True)
@@ -102,7 +104,7 @@ class Demands:
     continuous: bool  #: compression flange restrained throughout: no LTB check
     segments: tuple[LTBSegment, ...]  #: per LTB segment and diagram (one diagram per segment: envelope input)
     forces: tuple[ForceDemand, ...]
-    stiffened: tuple[float, ...]  #: positions of forces taken by bearing stiffeners (not checked)
+    stiffened: tuple[ForceDemand, ...]  #: forces taken by bearing stiffeners (EN 1993-1-5 section 9)
     deflections: tuple  #: (name, kind, values) per serviceability case
     span: float  #: span for the deflection limits (m)
     combination: str
@@ -176,15 +178,22 @@ def _force(f: Any, i: int) -> Force:
         return f
     if not isinstance(f, Mapping):
         raise InputError(f"forces[{i}]: got {f!r}; expected a Force or a dict with x, ss, F, load_type ...")
-    known = {"x", "ss", "F", "load_type", "c", "flange", "stiffened", "name"}
+    known = {"x", "ss", "F", "load_type", "c", "flange", "stiffened", "name", "stiffener"}
     bad = set(f) - known
     if bad:
         raise InputError(f"forces[{i}]: got the key {sorted(bad)[0]!r}; expected keys from {sorted(known)}")
     F = f.get("F")
+    st = f.get("stiffener")
+    if st is not None:
+        if not isinstance(st, (tuple, list)) or len(st) not in (2, 3):
+            raise InputError(f"forces[{i}].stiffener: got {st!r}; expected (b_s, t_s) or (b_s, t_s, clip)")
+        st = tuple(None if (j == 2 and v is None) else _si(v, "length", f"forces[{i}].stiffener[{j}]",
+                                                           positive=True) for j, v in enumerate(st))
     return Force(x=_si(f.get("x"), "length", f"forces[{i}].x"), ss=_si(f.get("ss"), "length", f"forces[{i}].ss"),
                  F=None if F is None else abs(_si(F, "force", f"forces[{i}].F", signed=True)),
                  load_type=f.get("load_type", "a"), c=_si(f.get("c"), "length", f"forces[{i}].c", allow_none=True),
-                 flange=f.get("flange", "top"), stiffened=bool(f.get("stiffened", False)), name=str(f.get("name", "")))
+                 flange=f.get("flange", "top"), stiffened=bool(f.get("stiffened", False)) or st is not None,
+                 name=str(f.get("name", "")), stiffener=st)
 
 
 # ------------------------------------------------------------------------------------------- inputs
@@ -371,12 +380,9 @@ def _resolve_forces(recs, xa, Mmax, Mmin, R, names, Lm):
             kk = int(np.argmax(col))
             F = float(col[kk])
             comb = names[kk] if names and len(names) == R[1].shape[0] else ""
-        if f.stiffened:
-            notes.append(f"force at x = {f.x:g} m: bearing stiffener assumed; its design is not covered by calckit")
-            stiff.append(f.x)
-            continue
         hi, lo = float(np.interp(f.x, xa, Mmax)), float(np.interp(f.x, xa, Mmin))
-        fds.append(ForceDemand(f, float(F), max(abs(hi), abs(lo)), hi >= -lo, comb))
+        fd = ForceDemand(f, float(F), max(abs(hi), abs(lo)), hi >= -lo, comb)
+        (stiff if f.stiffened else fds).append(fd)
     return tuple(fds), tuple(stiff), notes
 
 

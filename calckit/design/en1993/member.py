@@ -73,7 +73,9 @@ def check_member(section, steel, *, x=None, M=None, V=None, analysis=None, restr
     restraint is an overhang with a free end: ``overhang_root="continuous"`` (default) solves its LTB with
     the segment behind its root support, ``"fixed"`` takes the root as built in (also used when no other
     restraint exists). ``zg``: load height above the shear centre (every transverse load).
-    ``forces``: :class:`Force` records or dicts (x, ss, F, load_type, c, flange, stiffened).
+    ``forces``: :class:`Force` records or dicts (x, ss, F, load_type, c, flange, stiffened, stiffener); a
+    stiffened force gets the bearing stiffener checks of EN 1993-1-5 section 9 (the given ``stiffener``
+    (b_s, t_s[, clip]) in m, or the thinnest passing pair sized) instead of the web check of section 6.
     ``deflections``: {combination name: values or (kind, values)} with kind "total"/"variable" (values in
     m, arrays or a float); ``span``: span for the deflection limits (default the member length).
     ``demands``: a :class:`.demands.Demands` from :func:`calckit.design.en1993.demands` (then leave x, M, V,
@@ -164,6 +166,9 @@ def check_member(section, steel, *, x=None, M=None, V=None, analysis=None, restr
         McR = Mc.get(fd.sagging) or next(iter(Mc.values()), None)
         if McR and fd.M > 0:
             checks.append(_tr.interaction_72(fd.F, d["F_Rd"], fd.M, McR, Calc(steps), location=f.x))
+    # -- bearing stiffeners (EN 1993-1-5 section 9) at the forces marked stiffened --------------------
+    for fd in D.stiffened:
+        checks.extend(_bearing_stiffener(section, steel, ann, fy, fd, D, steps, combination, notes))
     # -- deflection ----------------------------------------------------------------------------------
     if D.deflections:
         key = ("deflections", ann, bool(steps))
@@ -174,6 +179,38 @@ def check_member(section, steel, *, x=None, M=None, V=None, analysis=None, restr
         checks.extend(dres)
     return MemberResult(standard=f"{STANDARD}; EN 1993-1-5:2006", method="EN", checks=tuple(checks),
                         section=s.name, steel=mat.grade, notes=tuple(notes) + D.notes, steps=calc.take())
+
+
+def _bearing_stiffener(section, steel, ann, fy, fd, D, steps, combination, notes) -> tuple:
+    """The stiffener checks for one stiffened force: the given pair checked, else the thinnest passing
+    pair of the plate series sized (:mod:`.stiffeners`). A stiffener at a member end (or a force of load
+    type (c)) is an end stiffener, with the web beyond its outer face e = (distance to the end) - t_s / 2;
+    both flanges are taken as laterally restrained there (at supports, and at interior forces where a
+    restraint is: l = 0.75 h_w; elsewhere l = h_w)."""
+    from .stiffeners import bearing_stiffener, size_bearing_stiffener
+
+    f = fd.force
+    x0, x1 = float(D.x[0]), float(D.x[-1])
+    tol = 1e-6 * max(x1 - x0, 1.0)
+    dist = min(f.x - x0, x1 - f.x)
+    end = dist <= tol or f.load_type == "c"  # type (c): next to a member end (EN 1993-1-5 Figure 6.1)
+    bounds = {round(v, 9) for sg in D.segments for v in (sg.a, sg.b)}
+    restrained = end or D.continuous or any(abs(f.x - b) <= tol for b in bounds)
+    kw = dict(end=end, annex=ann, restrained_flanges=restrained, fy=fy, steps=steps, location=f.x,
+              combination=fd.combination or combination)
+    F = f"{fd.F!r} N"  # the public functions take quantities
+    if f.stiffener is not None:
+        bs, ts = f.stiffener[0], f.stiffener[1]
+        clip = f.stiffener[2] if len(f.stiffener) > 2 else None
+        if end:
+            kw["e"] = f"{max(dist - ts / 2, 0.0)!r} m"
+        return bearing_stiffener(section, steel, F, b_s=f"{bs!r} m", t_s=f"{ts!r} m",
+                                 clip=None if clip is None else f"{clip!r} m", **kw)
+    if end:
+        kw["e"] = "0 m"  # the thickness is not known before sizing: no web beyond the stiffener (conservative)
+    sized = size_bearing_stiffener(section, steel, F, **kw)
+    notes.append(f"force at x = {f.x:g} m: {sized.note}")
+    return tuple(sized.checks)
 
 
 def _worst_with_shear(s, mat, ann, sag, cl, sh, Mc, Marr, Vabs, high) -> int:
