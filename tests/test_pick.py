@@ -596,3 +596,20 @@ def test_lightest_eu_equals_brute_force_en(spec):
     assert want is not None
     assert res.chosen.name == want
     assert res.chosen.ratio == pytest.approx(ratio, rel=RATIO_REL)
+
+
+def test_member_from_params_bears_where_the_calc_does():
+    """The search checks web bearing where the beam calc does: at the supports with bearing_length and
+    under the point loads that give their own bearing (L-108: 150 mm padstones, a 100 mm plate at 1.4 m)."""
+    from pathlib import Path
+
+    import yaml
+
+    from calckit.pick import member_from_params
+
+    raw = yaml.safe_load((Path(__file__).resolve().parents[1] / "parameters" / "L-108.yaml").read_text())
+    m = member_from_params(raw)
+    assert m.bearing == pytest.approx(0.150) and m.load_bearings == ((pytest.approx(1.4), pytest.approx(0.100)),)
+    for pl in raw["point_loads"]:
+        pl.pop("bearing")
+    assert member_from_params(raw).load_bearings == ()

@@ -51,33 +51,32 @@ def _with_combinations(checks, d: Demands):
 
 # ------------------------------------------------------------------------------------------- EN 1993
 def _en_forces(m: Member, d: Demands):
-    """Transverse forces at the supports (reactions) and under point loads, when a bearing length is given."""
-    if m.bearing is None:
+    """Transverse forces at the supports (reactions, when a bearing length is given) and under the point
+    loads that bear on a flange (``m.load_bearings``)."""
+    if m.bearing is None and not m.load_bearings:
         return ()
-    from ..analysis.loads import PointLoad
-
     out = []
     nodes = m.nodes
-    for i, (x, s) in enumerate(zip(nodes, m.supports)):
-        if isinstance(s, str) and s == "free":
-            continue
-        end = i in (0, len(nodes) - 1)
-        R = float(d.R_max[i])
-        if R <= 0:
-            continue
-        out.append({"x": x, "ss": m.bearing, "F": R, "load_type": "c" if end else "a", "c": 0.0 if end else None,
-                    "flange": "bottom", "name": f"support {i}"})
-    for ld in m.loads:
-        if isinstance(ld, PointLoad) and ld.P > 0:
-            idx = [i for i, x in enumerate(nodes) if abs(x - ld.x) < 1e-9 * m.L]
-            if idx:
+    if m.bearing is not None:
+        for i, (x, s) in enumerate(zip(nodes, m.supports)):
+            if isinstance(s, str) and s == "free":
                 continue
-            # largest factored jump of V at the load position
-            j = np.nonzero(np.abs(d.x - ld.x) <= 1e-9 * max(m.L, 1.0))[0]
-            if j.size >= 2:
-                F = max(abs(d.V_max[j[0]] - d.V_max[j[-1]]), abs(d.V_min[j[0]] - d.V_min[j[-1]]))
-                out.append({"x": ld.x, "ss": m.bearing, "F": float(F), "load_type": "a", "flange": "top",
-                            "name": f"point load at {ld.x:.4g} m"})
+            end = i in (0, len(nodes) - 1)
+            R = float(d.R_max[i])
+            if R <= 0:
+                continue
+            out.append({"x": x, "ss": m.bearing, "F": R, "load_type": "c" if end else "a",
+                        "c": 0.0 if end else None, "flange": "bottom", "name": f"support {i}"})
+    for x, lb in m.load_bearings:
+        if any(abs(x - n) < 1e-9 * m.L for n in nodes):
+            continue
+        # largest factored jump of V at the load position
+        j = np.nonzero(np.abs(d.x - x) <= 1e-9 * max(m.L, 1.0))[0]
+        if j.size >= 2:
+            F = max(abs(d.V_max[j[0]] - d.V_max[j[-1]]), abs(d.V_min[j[0]] - d.V_min[j[-1]]))
+            if F > 0:
+                out.append({"x": x, "ss": lb, "F": float(F), "load_type": "a", "flange": "top",
+                            "name": f"point load at {x:.4g} m"})
     return tuple(out)
 
 
@@ -370,17 +369,18 @@ def _aisc_candidate(D0, d: Demands, plan: _AiscPlan | None = None):
 
 
 def _aisc_bearing(m: Member) -> tuple:
-    """Bearing records at the supports and under point loads (lb = the member's bearing length)."""
-    from ..analysis.loads import PointLoad
+    """Bearing records at the supports (lb = the member's bearing length) and under the point loads that
+    bear on a flange (``m.load_bearings``)."""
     from ..design.aisc360 import Bearing
 
     out = []
-    for i, (x, s) in enumerate(zip(m.nodes, m.supports)):
-        if not (isinstance(s, str) and s == "free"):
-            out.append(Bearing(x=x, lb=m.bearing, name=f"support {i}"))
-    for ld in m.loads:
-        if isinstance(ld, PointLoad) and ld.P > 0 and all(abs(ld.x - x) > 1e-9 * m.L for x in m.nodes):
-            out.append(Bearing(x=ld.x, lb=m.bearing, name=f"load at {ld.x:.4g} m"))
+    if m.bearing is not None:
+        for i, (x, s) in enumerate(zip(m.nodes, m.supports)):
+            if not (isinstance(s, str) and s == "free"):
+                out.append(Bearing(x=x, lb=m.bearing, name=f"support {i}"))
+    for x, lb in m.load_bearings:
+        if all(abs(x - n) > 1e-9 * m.L for n in m.nodes):
+            out.append(Bearing(x=x, lb=lb, name=f"load at {x:.4g} m"))
     return tuple(out)
 
 
@@ -412,7 +412,8 @@ def _context(m: Member) -> dict:
                "supports": [x for x, s in zip(m.nodes, m.supports) if not (isinstance(s, str) and s == "free")],
                "bracing": "continuous" if m.bracing == "continuous" else braces,
                "restraints": "continuous" if m.bracing == "continuous" else braces,
-               "bearing": _aisc_bearing(m) if (m.bearing is not None and m.standard == AISC) else (),
+               "bearing": (_aisc_bearing(m) if ((m.bearing is not None or m.load_bearings) and m.standard == AISC)
+                           else ()),
                "length_q": length_q}
         if len(_CTX) > 16:
             _CTX.clear()

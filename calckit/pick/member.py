@@ -64,7 +64,8 @@ class Member:
     annex: EN 1993 national-annex set name; combinations: user strength combinations (None: the code
     combinations of ASCE 7-22 Sec. 2.3.1 / 2.4.1 or EN 1990 Eq. 6.10); bearing: bearing length at
     the supports and under point loads (m; None: the web checks under concentrated forces are not
-    made); name: member mark; notes: remarks for the record.
+    made); load_bearings: (x, bearing length) in m of the point loads that bear on a flange (checked
+    there); name: member mark; notes: remarks for the record.
     """
 
     spans: tuple[float, ...]
@@ -83,6 +84,7 @@ class Member:
     annex: str = "recommended"
     combinations: tuple | None = None
     bearing: float | None = None
+    load_bearings: tuple[tuple[float, float], ...] = ()  #: (x, bearing length) of point loads on a flange
     name: str = ""
     notes: tuple[str, ...] = field(default=(), compare=False)
 
@@ -225,7 +227,8 @@ def member(spans, supports=None, *, loads: Sequence[Mapping[str, Any]] = (), dea
            standard: str = AISC, method: str | None = None, grade: str | None = None,
            bracing: str = "continuous", brace_points: Sequence = (), defl_limit_live=..., defl_limit_total=...,
            self_weight: bool = True, live_category: str = "B", snow: str = "H<=1000m",
-           annex: str = "recommended", combinations=None, bearing_length=None, name: str = "") -> Member:
+           annex: str = "recommended", combinations=None, bearing_length=None, load_bearings=None,
+           name: str = "") -> Member:
     """Build a :class:`Member` from quantities or strings.
 
     ``spans``: "35 ft" or a list; ``supports``: one per span end (default pin + rollers); loads as
@@ -316,12 +319,35 @@ def member(spans, supports=None, *, loads: Sequence[Mapping[str, Any]] = (), dea
         brg = to_si(bearing_length, "length", "bearing_length", allow_array=False)
         if not brg >= 0:
             raise InputError(f"bearing_length: got {bearing_length!r}; expected a length >= 0")
+    from ..analysis.loads import PointLoad
+
+    if load_bearings is None:  # a bearing length alone applies under every point load too
+        pts = sorted({ld.x for ld in records if isinstance(ld, PointLoad) and ld.P > 0}) if brg is not None else []
+        lbs = tuple((x, brg) for x in pts)
+    else:
+        lbs = []
+        for i, item in enumerate(load_bearings):
+            try:
+                xq, lq = item
+            except (TypeError, ValueError):
+                raise InputError(f"load_bearings[{i}]: got {item!r}; expected (x, bearing length)") from None
+            xs = to_si(xq, "length", f"load_bearings[{i}].x", allow_array=False)
+            ls = to_si(lq, "length", f"load_bearings[{i}].bearing", allow_array=False)
+            if not (0 <= xs <= sum(L) and ls >= 0):
+                raise InputError(f"load_bearings[{i}]: got {item!r}; expected a position on the beam and a "
+                                 "length >= 0")
+            lbs.append((xs, ls))
+        merged: dict[float, float] = {}  # loads at one position (a D and an L record): the longest bearing
+        for xs, ls in lbs:
+            key = next((k for k in merged if abs(k - xs) <= 1e-9 * max(sum(L), 1.0)), xs)
+            merged[key] = max(merged.get(key, 0.0), ls)
+        lbs = tuple(sorted(merged.items()))
     return Member(spans=tuple(L), supports=tuple(sup), loads=tuple(records), standard=std, method=meth,
                   grade=st.name, bracing=bracing, brace_points=tuple(bp),
                   defl_live=_limit(defl_limit_live, "defl_limit_live"),
                   defl_total=_limit(defl_limit_total, "defl_limit_total"), self_weight=bool(self_weight),
                   live_category=str(live_category), snow=str(snow), annex=str(annex), combinations=combos,
-                  bearing=brg, name=str(name))
+                  bearing=brg, load_bearings=lbs, name=str(name))
 
 
 def member_from_params(params: Mapping[str, Any]) -> Member:
@@ -344,5 +370,8 @@ def member_from_params(params: Mapping[str, Any]) -> Member:
         roof_live_udl=v["roof_live_udl"], snow_udl=v["snow_udl"], point_loads=v["point_loads"],
         standard=std, method=v["method"] if std == AISC else "EN", grade=v["grade"], bracing=v["bracing"],
         brace_points=v["brace_points"], self_weight=v["self_weight"], live_category=v["live_category"],
-        bearing_length=v.get("bearing_length"), name=str(v.get("member", "")), **limits,
+        bearing_length=v.get("bearing_length"),
+        load_bearings=[(pl["x"], pl["bearing"]) for pl in v["point_loads"] or ()
+                       if isinstance(pl, Mapping) and pl.get("bearing") is not None],
+        name=str(v.get("member", "")), **limits,
     )
