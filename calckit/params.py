@@ -196,6 +196,11 @@ _BEARING = (
           "stiff bearing length at the supports (web bearing is checked at the reactions: AISC J10, "
           "EN 1993-1-5 section 6); none: framed end connections, no bearing check", dim="length",
           lo="0 mm", hi="2000 mm"),
+    Param("web_sidesway", "choice", "braced",
+          "AISC only, at point loads with a bearing: 'braced' (relative lateral movement of the flanges "
+          "prevented there: J10.4 not checked), 'rotation restrained' or 'rotation free' (the loaded "
+          "flange's rotation; J10.4 web sidesway buckling checked)",
+          choices=("braced", "rotation restrained", "rotation free")),
     Param("bearing_stiffener_b", "optional_quantity", None,
           "width of each bearing stiffener of the pair at the supports (none: no stiffeners; AISC sizes a "
           "pair where the web needs one)", dim="length", lo="10 mm", hi="1000 mm"),
@@ -228,6 +233,10 @@ def _stiffener_check(v: Mapping[str, Any]) -> list[tuple[str, str]]:
 
 def _load_stiffener_check(v: Mapping[str, Any]) -> list[tuple[str, str]]:
     out = []
+    sway = v.get("web_sidesway", "braced")
+    if sway != "braced" and not str(v.get("standard", "")).upper().startswith("AISC"):
+        out.append(("web_sidesway", f"got {sway!r}; web sidesway buckling is an AISC 360-22 J10.4 check "
+                                    "(EN 1993-1-5 has no such check here); expected 'braced'"))
     for i, pl in enumerate(v.get("point_loads") or []):
         if not isinstance(pl, Mapping):
             continue

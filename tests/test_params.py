@@ -103,6 +103,9 @@ BAD_CASES = [
      "stiffener_b: 3 in}\n", ["point_loads", "item 1", "both stiffener_b and stiffener_t"]),
     ("load-stiffener-without-bearing", GOOD + "point_loads:\n  - {case: D, P: 10 kip, x: 4 ft, stiffener_b: 3 in, "
      "stiffener_t: 0.5 in}\n", ["point_loads", "item 1", "bearing length"]),
+    ("sidesway-en", GOOD.replace("AISC 360-22", "EN 1993-1-1").replace("W18X50", "IPE 300").replace(
+        "A992", "S355") + "web_sidesway: rotation free\n", ["web_sidesway", "AISC 360-22 J10.4"]),
+    ("sidesway-choice", GOOD + "web_sidesway: free\n", ["web_sidesway", "free", "rotation free"]),
     ("point-load-bearing-unit", GOOD + "point_loads:\n  - {case: D, P: 10 kip, x: 4 ft, bearing: 4}\n",
      ["point_loads", "bearing", "bare number"]),
 ]

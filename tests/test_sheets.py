@@ -157,3 +157,23 @@ def test_en_girder_bearing_stiffeners_at_supports_and_under_the_columns():
     bare = GirderSheet(validate("plate_girder", raw, source="TG-201")).design_results()
     web = [r for r in bare if r.limit_state.startswith("Transverse force")]
     assert {r.location for r in web} == {5.5, 10.5} and any(r.passed is False for r in web)
+
+
+def test_web_sidesway_at_a_bearing_point_load():
+    """AISC 360-22 J10.4 at a point load bearing on the top flange of B-101 (braces at the supports only):
+    not checked when the flanges are braced there (the default), checked with Eq. J10-6 / J10-7 when the
+    loaded flange's rotation is restrained / free. Free gives the smaller strength: Rn = Cr tw^3 tf / h^2
+    times [1 + 0.4 r^3] in Eq. J10-6 against [0.4 r^3] in Eq. J10-7, r = (h/tw)/(Lb/bf) (from memory)."""
+    raw = yaml.safe_load((ROOT / "parameters" / "B-101.yaml").read_text())
+    raw.pop("calc")
+    raw.pop("expect", None)
+    raw["point_loads"] = [{"case": "D", "P": "8 kip", "x": "14 ft", "bearing": "4 in"}]
+    raw["bracing"] = "supports"
+    got = {}
+    for sway in ("braced", "rotation restrained", "rotation free"):
+        s = BeamSheet(validate("steel_beam", dict(raw, web_sidesway=sway), source="B-101"))
+        got[sway] = [r for r in s.design_results() if "sidesway" in r.limit_state]
+    assert got["braced"] == []
+    (r1,), (r2,) = got["rotation restrained"], got["rotation free"]
+    assert r1.location == r2.location == pytest.approx(14 * 0.3048)
+    assert r2.capacity < r1.capacity and r1.demand == r2.demand

@@ -188,8 +188,10 @@ def member_checks(sheet, a=None) -> list:
     from ..design.aisc360 import bearing, check_member
 
     bracing = "continuous" if not sheet.braces else sheet.braces
+    sway = {"rotation restrained": "restrained", "rotation free": "free"}.get(sheet.p.get("web_sidesway"))
     bearings = [bearing(f"{x!r} m", lb=f"{lb!r} m", flange="top" if kind == "load" else "bottom", name=name,
-                        stiffener=pair) for x, lb, kind, name, pair in points]
+                        stiffener=pair, sidesway=sway if kind == "load" else None)
+                for x, lb, kind, name, pair in points]
     res = check_member(sheet.section, sheet.steel, dia, method=sheet.method, bracing=bracing,
                        stiffeners=None if a is None else f"{a!r} m", bearing=bearings)
     return list(res.checks)
